@@ -1,0 +1,56 @@
+"""Error classes.
+
+Every error the library raises on purpose is a :class:`SwingcalcError`. Errors about
+what a caller passed in also subclass :class:`ValueError`, carry the offending field and
+value, and build their one-line message once, so a command-line front end can print it
+as it is.
+"""
+
+from __future__ import annotations
+
+__all__ = ["SwingcalcError", "InvalidInput", "SolverFailure"]
+
+
+class SwingcalcError(Exception):
+    """Base class of every error swingcalc raises on purpose."""
+
+
+class InvalidInput(SwingcalcError, ValueError):
+    """An input is outside what the model allows.
+
+    Parameters
+    ----------
+    field : str
+        Name of the input as the caller knows it (``"amplitude"``, ``"--length"``,
+        ``"design.toml: swing.amplitude"``).
+    value : object
+        The offending value, as given.
+    allowed : str
+        What would have been accepted, in words (``"a finite angle in [0, 180) deg"``).
+    problem : str, optional
+        What was wrong, when that is not obvious from ``allowed``.
+    """
+
+    def __init__(self, field: str, value: object, allowed: str, problem: str | None = None):
+        self.field = field
+        self.value = value
+        self.allowed = allowed
+        self.problem = problem
+        shown = _short(value)
+        head = f"{field}: {problem}" if problem else f"{field}: invalid value {shown}"
+        if problem and shown:
+            head = f"{head} (got {shown})"
+        super().__init__(f"{head}; allowed: {allowed}")
+
+    def renamed(self, field: str) -> "InvalidInput":
+        """Return the same error reported against another field name (CLI option, file path)."""
+        return InvalidInput(field, self.value, self.allowed, self.problem)
+
+
+class SolverFailure(SwingcalcError, RuntimeError):
+    """A numerical method did not converge; the message says which and where."""
+
+
+def _short(value: object, limit: int = 60) -> str:
+    text = repr(value)
+    return text if len(text) <= limit else text[: limit - 3] + "..."
