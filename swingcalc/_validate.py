@@ -8,7 +8,7 @@ import numpy as np
 
 from .errors import InvalidInput
 
-__all__ = ["real_array", "positive_scalar", "finalize"]
+__all__ = ["real_array", "real_scalar", "positive_scalar", "finalize"]
 
 
 def real_array(value, field: str, allowed: str, *, low=None, high=None,
@@ -36,12 +36,17 @@ def real_array(value, field: str, allowed: str, *, low=None, high=None,
     return arr, arr.ndim == 0
 
 
+def real_scalar(value, field: str, allowed: str, **limits):
+    """A single finite float inside the stated range (see :func:`real_array`)."""
+    arr, scalar = real_array(value, field, allowed, **limits)
+    if not scalar:
+        raise InvalidInput(field, value, f"a single value: {allowed}", "not a scalar")
+    return float(arr)
+
+
 def positive_scalar(value, field: str, unit: str):
     """A finite, strictly positive float (a length, a gravity, a mass)."""
-    arr, scalar = real_array(value, field, f"a finite number > 0 [{unit}]", low=0.0, low_open=True)
-    if not scalar:
-        raise InvalidInput(field, value, f"a single finite number > 0 [{unit}]", "not a scalar")
-    return float(arr)
+    return real_scalar(value, field, f"a finite number > 0 [{unit}]", low=0.0, low_open=True)
 
 
 def finalize(result, scalar: bool):

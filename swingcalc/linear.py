@@ -13,7 +13,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from ._validate import finalize, real_array
+from ._validate import finalize, real_array, real_scalar
 from .constants import SECONDS_PER_DAY
 from .errors import InvalidInput
 from .kernels import swing as _k
@@ -285,8 +285,9 @@ def small_angle_check(amplitude, tolerance=0.001, cycles=86400.0):
     if not scalar:
         raise InvalidInput("amplitude", amplitude, "a single amplitude [rad]", "not a scalar")
     a = float(a)
-    tol = float(real_array(tolerance, "tolerance", "a finite relative error in (0, 1)",
-                           low=0.0, high=1.0, low_open=True, high_open=True)[0])
+    tol = real_scalar(tolerance, "tolerance", "a finite relative error in (0, 1)",
+                      low=0.0, high=1.0, low_open=True, high_open=True)
+    n_cycles = real_scalar(cycles, "cycles", "a finite number of cycles >= 0", low=0.0)
     err = small_angle_period_error(a)
     limit = max_amplitude_for_period_error(tol)
     ok = abs(err) <= tol
@@ -301,6 +302,6 @@ def small_angle_check(amplitude, tolerance=0.001, cycles=86400.0):
         bounds=period_ratio_bounds(a),
         peak_speed_error_rel=peak_speed_error(a),
         peak_tension_error_rel=peak_tension_error(a),
-        cycles=float(cycles), phase_error_rad=phase_error(a, cycles),
+        cycles=n_cycles, phase_error_rad=phase_error(a, n_cycles),
         clock_rate_s_per_day=clock_rate_error(a),
         max_amplitude_rad=limit, acceptable=bool(ok), message=msg)

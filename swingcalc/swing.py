@@ -13,7 +13,7 @@ from dataclasses import dataclass, field
 import numpy as np
 from scipy import special
 
-from ._validate import finalize, real_array
+from ._validate import finalize, positive_scalar, real_array, real_scalar
 from .constants import STANDARD_GRAVITY
 from .errors import InvalidInput, SolverFailure
 from .kernels import swing as _k
@@ -317,25 +317,25 @@ def time_from_bottom(angle, length, *, amplitude=None, bottom_speed=None,
     if (amplitude is None) == (bottom_speed is None):
         raise InvalidInput("amplitude/bottom_speed", None,
                            "exactly one of amplitude or bottom_speed", "give one of them")
-    L, _ = _positive(length, "length", "m")
-    g, _ = _positive(gravity, "gravity", "m/s^2")
+    L = positive_scalar(length, "length", "m")
+    g = positive_scalar(gravity, "gravity", "m/s^2")
     th, scalar = real_array(angle, "angle", "a finite angle in [-pi, pi] rad",
                             low=-math.pi, high=math.pi)
-    omega0 = math.sqrt(float(g) / float(L))
+    omega0 = math.sqrt(g / L)
     half = 0.5 * np.abs(th)
     s = np.sin(half)
     c = np.cos(half)
     if amplitude is not None:
-        a, _ = _amplitudes(amplitude)
-        a = float(a)
+        a = real_scalar(amplitude, "amplitude", _AMPLITUDE_ALLOWED, low=0.0, high=math.pi,
+                        high_open=True)
         if np.any(np.abs(th) > a):
             raise InvalidInput("angle", float(np.max(np.abs(th))),
                                f"|angle| <= amplitude = {a:.17g} rad", "never reached")
         h = math.sin(0.5 * a) ** 2
         gap = np.sin(0.5 * (a - np.abs(th))) * np.sin(0.5 * (a + np.abs(th)))
     else:
-        v, _ = real_array(bottom_speed, "bottom_speed", "a finite speed [m/s]")
-        w = abs(float(v)) / (2.0 * math.sqrt(float(g) * float(L)))
+        v = real_scalar(bottom_speed, "bottom_speed", "a finite speed [m/s]")
+        w = abs(v) / (2.0 * math.sqrt(g * L))
         h = w * w
         gap = (w - s) * (w + s)
         if np.any(gap < 0.0):
@@ -440,13 +440,12 @@ def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, toleranc
     -------
     SwingState
     """
-    th, _ = real_array(angle, "angle", "a finite angle [rad]")
-    om, _ = real_array(angular_velocity, "angular_velocity", "a finite angular velocity [rad/s]")
-    L, _ = _positive(length, "length", "m")
-    g, _ = _positive(gravity, "gravity", "m/s^2")
-    tol, _ = real_array(tolerance, "tolerance", "a finite tolerance in [0, 0.5)", low=0.0,
-                        high=0.5, high_open=True)
-    th, om, L, g, tol = float(th), float(om), float(L), float(g), float(tol)
+    th = real_scalar(angle, "angle", "a finite angle [rad]")
+    om = real_scalar(angular_velocity, "angular_velocity", "a finite angular velocity [rad/s]")
+    L = positive_scalar(length, "length", "m")
+    g = positive_scalar(gravity, "gravity", "m/s^2")
+    tol = real_scalar(tolerance, "tolerance", "a finite tolerance in [0, 0.5)", low=0.0,
+                      high=0.5, high_open=True)
     omega0 = math.sqrt(g / L)
     t0 = 2.0 * math.pi / omega0
     w = om / (2.0 * omega0)
