@@ -141,7 +141,7 @@ def period_excess(amplitude):
 
     Notes
     -----
-    Below m = 0.1 (amplitude 36.9 deg) it is summed from (2/pi) K(m) - 1 =
+    Below m = 0.5 (amplitude 90 deg) it is summed from (2/pi) K(m) - 1 =
     sum_{n>=1} [(2n)!/(4^n n!^2)]^2 m^n (A&S 17.3.11), which avoids the cancellation of
     ``period_ratio(a) - 1`` (that loses all digits below about 1e-8 rad).
     """

@@ -40,10 +40,10 @@ __all__ = [
 ]
 
 _TWO_OVER_PI = 2.0 / np.pi
-# Below this parameter the excess T/T0 - 1 is summed from its series in m, which keeps
+# Below this parameter (amplitude 90 deg) the excess T/T0 - 1 is summed from its series in m, which keeps
 # full relative accuracy as m -> 0, where (2/pi) K(m) - 1 cancels.
-_SERIES_LIMIT = 0.1
-_SERIES_TERMS = 20
+_SERIES_LIMIT = 0.5
+_SERIES_TERMS = 60
 
 
 def amplitude_parameters(amplitude):
