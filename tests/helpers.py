@@ -31,8 +31,11 @@ def period_cases():
 
 
 def mp_period_ratio(a, dps=40):
-    """(2/pi) K(sin^2(A/2)) with mpmath at exactly mpf(a) (A&S 17.2; DLMF 19.2.8)."""
-    with mpmath.workdps(dps):
+    """(2/pi) K(sin^2(A/2)) with mpmath at exactly mpf(a) (A&S 17.2; DLMF 19.2.8).
+
+    At least 60 digits: for the last floats below pi, 1 - m is 1e-33 and must survive.
+    """
+    with mpmath.workdps(max(dps, 60)):
         return 2 / mpmath.pi * mpmath.ellipk(mpmath.sin(mpmath.mpf(a) / 2) ** 2)
 
 
