@@ -264,6 +264,7 @@ def _solve_logit(e):
         x_new = x - step
         outside = ~((x_new > lo) & (x_new < hi)) | ~np.isfinite(x_new)
         x_new = np.where(outside, 0.5 * (lo + hi), x_new)
+        x_new = np.where(resid == 0.0, x, x_new)
         done = np.abs(x_new - x) <= 4.0 * np.finfo(float).eps * np.maximum(1.0, np.abs(x))
         x = x_new
         if np.all(done | (resid == 0.0)):

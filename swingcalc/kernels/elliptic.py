@@ -81,7 +81,9 @@ def jacobi_sncndn(u, m, p):
     if np.any(sep):
         us = u[sep]
         sn[sep] = np.tanh(us)
-        cn[sep] = dn[sep] = 1.0 / np.cosh(us)
+        # sech u = 2 e^-|u| / (1 + e^-2|u|): no overflow of cosh for |u| > 710.
+        decay = np.exp(-np.abs(us))
+        cn[sep] = dn[sep] = 2.0 * decay / (1.0 + decay * decay)
     per = ~sep
     if np.any(per):
         s, c, d = _periodic(u[per], m[per], p[per])
