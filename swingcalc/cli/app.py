@@ -1,0 +1,216 @@
+"""The ``swingcalc`` command: one typer app; each command parses, calls a report builder
+(which calls the library) and renders. Errors become one line on stderr and an exit code:
+2 for bad input, 1 for an internal failure; never a traceback."""
+
+from __future__ import annotations
+
+import sys
+from pathlib import Path
+from typing import Annotated, Optional
+
+import typer
+from typer.core import TyperGroup
+
+from ..errors import InvalidInput, SwingcalcError
+from . import options as opt
+
+__all__ = ["app", "main"]
+
+PROG = "swingcalc"
+
+
+def _fail(message: str, code: int) -> int:
+    sys.stderr.write(f"{PROG}: {' '.join(str(message).split())}\n")
+    sys.stderr.flush()
+    return code
+
+
+class _Group(TyperGroup):
+    """Maps errors to one line on stderr and an exit status, for the real command and for
+    test runners alike."""
+
+    def main(self, args=None, prog_name=None, complete_var=None, standalone_mode=True,
+             **extra):
+        import typer._click as click
+
+        try:
+            rv = super().main(args=args, prog_name=prog_name or PROG,
+                              complete_var=complete_var, standalone_mode=False, **extra)
+            code = rv if isinstance(rv, int) else 0
+        except InvalidInput as exc:
+            code = _fail(exc, 2)
+        except SwingcalcError as exc:
+            code = _fail(f"internal failure: {exc}", 1)
+        except click.exceptions.UsageError as exc:
+            cmd = exc.ctx.command_path if exc.ctx is not None else PROG
+            code = _fail(f"{exc.format_message()} (see '{cmd} --help')", 2)
+        except click.exceptions.Abort:
+            code = _fail("aborted", 1)
+        except click.exceptions.ClickException as exc:
+            code = _fail(exc.format_message(), exc.exit_code)
+        if standalone_mode:
+            sys.exit(code)
+        return code
+
+
+app = typer.Typer(
+    name=PROG, cls=_Group, pretty_exceptions_enable=False, no_args_is_help=False,
+    add_completion=False, context_settings={"help_option_names": ["-h", "--help"]},
+    help="Pendulum and swinging-part design calculations: exact period at the real "
+         "amplitude, small-angle check, speeds, tensions and energies, with safety cautions. "
+         "Run with no command for the bundled example design.")
+
+
+def _emit(report, fmt: str | None, output: Path | None, force: bool) -> None:
+    """Render the report to the screen or to a file (atomically, no overwrite without --force)."""
+    from ..report.formats import render
+
+    kind = opt.output_format(fmt, output)
+    if output is not None:
+        from ..report.files import write_atomic
+
+        write_atomic(output, render(report, kind), force=force)
+        sys.stderr.write(f"{PROG}: wrote {kind} report to {output}\n")
+        return
+    if kind == "table":
+        from .render import print_report
+
+        print_report(report)
+    else:
+        sys.stdout.write(render(report, kind))
+
+
+def _precheck(fmt, output, force) -> None:
+    """Catch a bad --format or --output before computing anything."""
+    opt.output_format(fmt, output)
+    if output is not None:
+        from ..report.files import check_writable
+
+        check_writable(output, force)
+
+
+def _design(design: Path | None, length, mass, suspension, amplitude, gravity):
+    """The design to run: the file, or the bundled default, with the options applied."""
+    import dataclasses
+
+    from ..designfile import Design, SimpleBody, absent, load_design, parse_design
+
+    body_options = any(v is not None for v in (length, mass, suspension))
+    if design is not None:
+        d = load_design(design)
+    elif not body_options:
+        from .. import examples
+
+        d = parse_design(examples.text(), f"bundled example {examples.DEFAULT}")
+    else:
+        if length is None:
+            raise absent("--length", "a length such as '994 mm' (or a design file)",
+                         "required with --mass or --suspension when no design file is given")
+        d = Design(name="pendulum from options", revision="", context="general",
+                   body=SimpleBody(length_m=1.0, bob_mass_kg=1.0, suspension="rigid"),
+                   amplitudes_rad=(0.17453292519943295,),   # 10 deg
+                   gravity_m_s2=opt.gravity(None)[0], gravity_given="standard", source="")
+    body = d.body
+    if length is not None:
+        body = dataclasses.replace(body, length_m=opt.length(length))
+    if mass is not None:
+        body = dataclasses.replace(body, bob_mass_kg=opt.mass(mass))
+    if suspension is not None:
+        body = dataclasses.replace(body, suspension=opt.suspension(suspension))
+    changes = {"body": body}
+    if amplitude is not None:
+        changes["amplitudes_rad"] = tuple(opt.amplitudes(amplitude))
+    if gravity is not None:
+        g, given = opt.gravity(gravity)
+        changes.update(gravity_m_s2=g, gravity_given=given)
+    return dataclasses.replace(d, **changes)
+
+
+DesignArg = Annotated[Optional[Path], typer.Argument(
+    metavar="[DESIGN.toml]", help="Design file (TOML). Default: the bundled example clock.",
+    show_default=False)]
+
+
+@app.callback(invoke_without_command=True)
+def _root(ctx: typer.Context) -> None:
+    """Pendulum design calculations. With no command: `pendulum` on the bundled example."""
+    if ctx.invoked_subcommand is None:
+        _pendulum(None, None, None, None, None, None, None, None, False)
+
+
+@app.command("pendulum")
+def pendulum(design: DesignArg = None, length: opt.Length = None, amplitude: opt.Amplitude = None,
+             mass: opt.Mass = None, suspension: opt.Suspension = None,
+             gravity: opt.Gravity = None, fmt: opt.Format = None, output: opt.Output = None,
+             force: opt.Force = False) -> None:
+    """Simple-pendulum summary at each working amplitude: period, beat, speeds, tensions,
+    energy, over-the-top and slack limits, with warnings and safety cautions.
+
+    Options override the design file. Without a file: the bundled example, or, given
+    --length/--mass/--suspension, a plain design (1 kg, 10 deg, rigid, standard gravity).
+    """
+    _pendulum(design, length, amplitude, mass, suspension, gravity, fmt, output, force)
+
+
+def _pendulum(design, length, amplitude, mass, suspension, gravity, fmt, output, force):
+    from ..report.builders import pendulum_report
+
+    _precheck(fmt, output, force)
+    d = _design(design, length, mass, suspension, amplitude, gravity)
+    _emit(pendulum_report(d), fmt, output, force)
+
+
+@app.command("periods")
+def periods(amplitude: Annotated[str, typer.Option(
+                "--amplitude", metavar="ANGLES",
+                help="Amplitudes: a range '0:90:10', a list '5, 10, 20' or one value "
+                     "(bare: deg).")] = "0:90:10",
+            length: opt.Length = None, gravity: opt.Gravity = None,
+            fmt: opt.Format = None, output: opt.Output = None, force: opt.Force = False) -> None:
+    """Period against amplitude: exact T/T0 and T, the small-angle period and its error,
+    the 2-, 3- and 4-term series and rigorous bounds. Default length 1 m."""
+    from ..report.builders import periods_report
+
+    _precheck(fmt, output, force)
+    amps = opt.amplitudes(amplitude)
+    L = opt.length(length) if length is not None else 1.0
+    g, given = opt.gravity(gravity)
+    _emit(periods_report(amps, L, g, given), fmt, output, force)
+
+
+@app.command("small-angle")
+def small_angle(amplitude: Annotated[str, typer.Option(
+                    "--amplitude", metavar="ANGLES",
+                    help="Working amplitude(s): '15', '2, 5, 10' or a range (bare: deg).")]
+                = "2, 5, 10, 15, 20, 30",
+                tolerance: opt.Tolerance = "0.1 %", cycles: opt.Cycles = "100",
+                fmt: opt.Format = None, output: opt.Output = None,
+                force: opt.Force = False) -> None:
+    """Is the small-angle model good enough? Errors in period, series, peak speed and
+    tension, phase lead after N cycles, clock rate, the largest amplitude within the
+    tolerance, and a verdict."""
+    from ..report.builders import small_angle_report
+
+    _precheck(fmt, output, force)
+    amps = opt.amplitudes(amplitude)
+    tol = opt.tolerance(tolerance)
+    n = opt.cycles(cycles)
+    _emit(small_angle_report(amps, tol, n), fmt, output, force)
+
+
+def main(argv=None) -> None:
+    """Console-script entry point."""
+    try:
+        app(args=argv, prog_name=PROG)
+    except SystemExit:
+        raise
+    except (InvalidInput, SwingcalcError) as exc:  # raised outside a command (defensive)
+        sys.exit(_fail(exc, 2 if isinstance(exc, InvalidInput) else 1))
+    except KeyboardInterrupt:
+        sys.exit(_fail("interrupted", 130))
+    except Exception as exc:  # noqa: BLE001 - last resort: never show a traceback
+        sys.exit(_fail(f"internal error ({type(exc).__name__}: {exc}); please report it", 1))
+
+
+if __name__ == "__main__":  # pragma: no cover
+    main()

@@ -1,0 +1,131 @@
+"""Shared command-line options: their declarations and the parsers that turn them into SI.
+
+Every option arrives as text and is parsed here (not by the option framework), so that a
+bad value gives one line naming the option, what was wrong and what is allowed.
+"""
+
+from __future__ import annotations
+
+import math
+from pathlib import Path
+from typing import Annotated, Optional
+
+import typer
+
+from ..constants import STANDARD_GRAVITY
+from ..designfile import SUSPENSIONS, suggest
+from ..errors import InvalidInput
+from ..quantity import parse_quantity, parse_values, split_magnitude
+
+__all__ = [
+    "Amplitude", "Cycles", "Force", "Format", "Gravity", "Length", "Mass", "Output",
+    "Suspension", "Tolerance", "amplitudes", "cycles", "gravity", "length", "mass",
+    "output_format", "positive_time", "suspension", "tolerance",
+]
+
+FORMATS = ("table", "csv", "json", "markdown")
+_SUFFIX_FORMATS = {".csv": "csv", ".json": "json", ".md": "markdown", ".markdown": "markdown",
+                   ".txt": "table", ".text": "table"}
+_AMPLITUDE_ALLOWED = ("libration amplitudes in [0, 180) deg: one value, a list '10, 20, 30' "
+                      "or a range '0:90:10' (bare numbers in deg; units such as '0.5 rad')")
+
+# Option declarations, shared by the commands (all text; parsed by the functions below).
+Length = Annotated[Optional[str], typer.Option(
+    "--length", metavar="LENGTH", help="Pivot to bob centre, e.g. '994 mm', '2.5 ft' (bare: m).")]
+Amplitude = Annotated[Optional[str], typer.Option(
+    "--amplitude", metavar="ANGLES",
+    help="Amplitude(s): '15', '10, 20, 30', a range '0:90:10' or with a unit '0:1:0.1 rad' "
+         "(bare: deg).")]
+Gravity = Annotated[Optional[str], typer.Option(
+    "--gravity", metavar="ACCEL",
+    help="'standard' (9.80665 m/s^2) or an acceleration, e.g. '9.8123 m/s^2' (bare: m/s^2).")]
+Mass = Annotated[Optional[str], typer.Option(
+    "--mass", metavar="MASS", help="Bob mass, e.g. '1.2 kg', '25 lb' (bare: kg).")]
+Suspension = Annotated[Optional[str], typer.Option(
+    "--suspension", metavar="KIND",
+    help="'rigid' (light rod) or 'flexible' (chain, rope, cable: tension only).")]
+Tolerance = Annotated[str, typer.Option(
+    "--tolerance", metavar="FRACTION",
+    help="Accepted relative period error, e.g. '0.1 %' or 0.001.")]
+Cycles = Annotated[str, typer.Option(
+    "--cycles", metavar="N", help="Number of periods for the accumulated phase error.")]
+Format = Annotated[Optional[str], typer.Option(
+    "--format", metavar="FORMAT",
+    help="table, csv, json or markdown (default: table, or from the --output suffix).")]
+Output = Annotated[Optional[Path], typer.Option(
+    "--output", "-o", metavar="FILE", help="Write to FILE (atomically) instead of the screen.",
+    dir_okay=True, resolve_path=False)]
+Force = Annotated[bool, typer.Option("--force", help="Replace an existing --output file.")]
+
+
+def length(text: str, field: str = "--length") -> float:
+    return parse_quantity(text, "length", field, minimum=0.0, include_min=False,
+                          allowed="a length > 0, e.g. '994 mm', '2.5 ft' or a bare number in m")
+
+
+def mass(text: str, field: str = "--mass") -> float:
+    return parse_quantity(text, "mass", field, minimum=0.0, include_min=False,
+                          allowed="a mass > 0, e.g. '1.2 kg', '25 lb' or a bare number in kg")
+
+
+def gravity(text: str | None, field: str = "--gravity") -> tuple[float, str]:
+    """(gravity [m/s^2], how it was given); None or 'standard' is standard gravity."""
+    if text is None or text.strip().lower() == "standard":
+        return STANDARD_GRAVITY, "standard"
+    g = parse_quantity(text, "acceleration", field, minimum=0.0, include_min=False,
+                       allowed="'standard' or an acceleration > 0, e.g. '9.8123 m/s^2'")
+    return g, text
+
+
+def amplitudes(text: str, field: str = "--amplitude") -> list[float]:
+    return parse_values(text, "angle", field, minimum=0.0, maximum=math.pi, include_max=False,
+                        allowed=_AMPLITUDE_ALLOWED)
+
+
+def suspension(text: str, field: str = "--suspension") -> str:
+    word = text.strip().lower()
+    if word not in SUSPENSIONS:
+        raise InvalidInput(field, text, " or ".join(SUSPENSIONS),
+                           f"unknown suspension{suggest(word, SUSPENSIONS)}")
+    return word
+
+
+def tolerance(text: str, field: str = "--tolerance") -> float:
+    return parse_quantity(text, "fraction", field, minimum=0.0, maximum=1.0, include_min=False,
+                          include_max=False,
+                          allowed="a relative error in (0, 1), e.g. '0.1 %', '500 ppm' or 0.001")
+
+
+def cycles(text: str, field: str = "--cycles") -> float:
+    allowed = "a number of periods >= 0, e.g. 100"
+    value, unit = split_magnitude(text, field, allowed)
+    if unit:
+        raise InvalidInput(field, text, allowed, "a count takes no unit")
+    if value < 0.0:
+        raise InvalidInput(field, text, allowed, "out of range")
+    return value
+
+
+def positive_time(text: str, field: str) -> float:
+    return parse_quantity(text, "time", field, minimum=0.0, include_min=False,
+                          allowed="a time > 0, e.g. '10 s', '2 min' or a bare number in s")
+
+
+def output_format(fmt: str | None, output: Path | None) -> str:
+    """The format to write: --format if given, else from the --output suffix, else table."""
+    if fmt is not None:
+        word = fmt.strip().lower()
+        if word == "md":
+            word = "markdown"
+        if word not in FORMATS:
+            raise InvalidInput("--format", fmt, ", ".join(FORMATS),
+                               f"unknown format{suggest(word, FORMATS)}")
+        return word
+    if output is None:
+        return "table"
+    suffix = output.suffix.lower()
+    if suffix not in _SUFFIX_FORMATS:
+        raise InvalidInput("--output", str(output),
+                           "a file ending in .csv, .json, .md or .txt, or give --format",
+                           "cannot tell the format from the file name")
+    return _SUFFIX_FORMATS[suffix]

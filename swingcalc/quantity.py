@@ -1,0 +1,368 @@
+"""User strings with units -> SI floats, at the boundary (design files, command line).
+
+A bare number is SI, except an angle, which is in degrees (the trade's habit). A number
+with a unit (``"850 mm"``, ``"2.5 ft"``, ``"30 deg"``, ``"0.5 %"``) is converted with pint,
+which is imported only when a string carries a unit other than the kind's own SI unit
+(or degrees for an angle), so bare-number runs stay light.
+
+Parsing is deliberately narrow: the magnitude is split off with a regular expression and
+read with :func:`float`; the unit part is limited in length and characters, may hold
+numbers only as small integer exponents, and is handed to pint's unit parser (never to a
+definition file). The result must have the dimension of the expected kind.
+
+Value lists: ``"10, 20, 30"``, ranges ``"0:90:10"`` (start:stop:step, the stop is included
+when it falls on the grid) and mixtures, with a trailing unit applying to bare parts
+(``"0:90:5 deg"``, ``"850, 900 mm"``).
+"""
+
+from __future__ import annotations
+
+import difflib
+import math
+import re
+from dataclasses import dataclass
+
+import numpy as np
+
+from .errors import InvalidInput
+
+__all__ = ["KINDS", "parse_quantity", "parse_values", "split_magnitude"]
+
+#: Longest accepted single quantity string, and longest value list.
+MAX_QUANTITY_CHARS = 100
+MAX_LIST_CHARS = 2000
+#: Most values a list or range may expand to.
+MAX_VALUES = 10_000
+_MAX_EXPONENT = 4
+
+_NUMBER = re.compile(r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?")
+_UNIT_CHARS = re.compile(r"[A-Za-z_µμ°%Ω][A-Za-z0-9_µμ°%Ω */^()\-]*")
+_EXPONENT = re.compile(r"(\*\*|\^)\s*(\(\s*)?(-?\d+)(\s*\))?")
+_NAME = re.compile(r"[A-Za-z_µμ°%Ω][A-Za-z0-9_µμ°%Ω]*")
+_NOT_FINITE = re.compile(r"[+-]?(nan|inf|infinity)\b", re.IGNORECASE)
+
+
+@dataclass(frozen=True)
+class Kind:
+    """A physical kind of input: its SI unit, how to recognise it, what to suggest."""
+
+    name: str
+    si: str                 # pint spelling of the SI unit the library takes
+    described: str          # in words, for error messages
+    examples: str
+    identity: tuple         # unit spellings that need no conversion (no pint)
+    suggestions: tuple      # units offered in "did you mean"
+
+
+KINDS = {
+    "length": Kind("length", "m", "a length", "'850 mm', '2.5 ft' or a bare number in m",
+                   ("m", "metre", "metres", "meter", "meters"),
+                   ("m", "mm", "cm", "km", "um", "in", "ft", "yd", "mi")),
+    "angle": Kind("angle", "rad", "an angle", "'30 deg', '0.5 rad' or a bare number in deg",
+                  ("rad", "radian", "radians"),
+                  ("deg", "rad", "degree", "radian", "arcmin", "arcsec", "turn", "grad")),
+    "mass": Kind("mass", "kg", "a mass", "'1.2 kg', '2.5 lb' or a bare number in kg",
+                 ("kg", "kilogram", "kilograms"),
+                 ("kg", "g", "t", "lb", "oz")),
+    "acceleration": Kind("acceleration", "m/s^2", "an acceleration",
+                         "'9.81 m/s^2', '1 g0' or a bare number in m/s^2",
+                         ("m/s^2", "m/s**2", "m s^-2", "m*s^-2", "m*s**-2"),
+                         ("m/s^2", "ft/s^2", "g0", "gal")),
+    "speed": Kind("speed", "m/s", "a speed", "'3 m/s', '10 km/h' or a bare number in m/s",
+                  ("m/s",), ("m/s", "km/h", "ft/s", "mph", "knot")),
+    "angular_velocity": Kind("angular_velocity", "rad/s", "an angular speed",
+                             "'1.5 rad/s', '90 deg/s', '10 rpm' or a bare number in rad/s",
+                             ("rad/s", "radian/second"), ("rad/s", "deg/s", "rpm", "rps")),
+    "time": Kind("time", "s", "a time", "'2 s', '500 ms', '1 h' or a bare number in s",
+                 ("s", "second", "seconds"), ("s", "ms", "min", "h", "day")),
+    "temperature": Kind("temperature", "K", "a temperature", "'20 degC', '293.15 K', '68 degF'",
+                        ("K", "kelvin"), ("degC", "K", "degF")),
+    "fraction": Kind("fraction", "dimensionless", "a fraction",
+                     "'0.5 %', '200 ppm' or a bare number such as 0.005",
+                     ("",), ("%", "percent", "ppm")),
+}
+
+_DEGREE_SPELLINGS = ("deg", "degree", "degrees", "°")
+_REGISTRY = None
+
+
+def _registry():
+    """The one pint registry, created on first use (it costs a few tenths of a second)."""
+    global _REGISTRY
+    if _REGISTRY is None:
+        try:
+            import pint
+        except ImportError:  # pragma: no cover - pint is a declared dependency
+            raise InvalidInput("unit", None, "bare numbers (SI; angles in deg)",
+                               "units need the 'pint' package, which is not installed") from None
+        _REGISTRY = pint.UnitRegistry()
+    return _REGISTRY
+
+
+def _kind(kind: str) -> Kind:
+    try:
+        return KINDS[kind]
+    except KeyError:
+        raise ValueError(f"unknown quantity kind {kind!r}; one of {sorted(KINDS)}") from None
+
+
+def _allowed(k: Kind, allowed: str | None) -> str:
+    return allowed or f"{k.described}, e.g. {k.examples}"
+
+
+def _normalise(text: str) -> str:
+    return (text.replace("\u2212", "-").replace("\u00a0", " ").replace("\u202f", " ")
+            .replace("·", "*").replace("²", "^2").replace("³", "^3").strip())
+
+
+def split_magnitude(text: str, field: str, allowed: str) -> tuple[float, str]:
+    """Split ``"850 mm"`` into ``(850.0, "mm")``; the unit is ``""`` for a bare number."""
+    t = _normalise(text)
+    if not t:
+        raise InvalidInput(field, text, allowed, "empty value")
+    if len(t) > MAX_QUANTITY_CHARS:
+        raise InvalidInput(field, text, allowed,
+                           f"longer than {MAX_QUANTITY_CHARS} characters")
+    if _NOT_FINITE.match(t):
+        raise InvalidInput(field, text, allowed, "not a finite number")
+    m = _NUMBER.match(t)
+    if not m:
+        raise InvalidInput(field, text, allowed, "does not start with a number")
+    value = float(m.group(0))
+    if not math.isfinite(value):
+        raise InvalidInput(field, text, allowed, "not a finite number (too large)")
+    return value, t[m.end():].strip()
+
+
+def _check_unit_text(unit: str, field: str, original: str, allowed: str) -> None:
+    if not _UNIT_CHARS.fullmatch(unit):
+        raise InvalidInput(field, original, allowed,
+                           "the unit may contain only letters, spaces, '*', '/', '^', "
+                           "'(', ')', '%' and small integer exponents")
+    for m in _EXPONENT.finditer(unit):
+        if abs(int(m.group(3))) > _MAX_EXPONENT:
+            raise InvalidInput(field, original, allowed,
+                               f"unit exponents are limited to +-{_MAX_EXPONENT}")
+    rest = _NAME.sub("", _EXPONENT.sub("", unit))
+    if re.search(r"[\d\-]", rest):
+        raise InvalidInput(field, original, allowed,
+                           "numbers may appear in a unit only as exponents ('m/s^2')")
+
+
+def _suggest(token: str, k: Kind, ureg) -> str:
+    pool = list(k.suggestions)
+    exact = [c for c in pool if c.lower() == token.lower()]
+    if exact:
+        return f"; did you mean '{exact[0]}'?"
+    close = difflib.get_close_matches(token, pool, n=3, cutoff=0.5)
+    if not close:
+        close = difflib.get_close_matches(token, [n for n in dir(ureg) if not n.startswith("_")],
+                                          n=3, cutoff=0.75)
+    if not close:
+        return ""
+    return "; did you mean " + " or ".join(f"'{c}'" for c in close) + "?"
+
+
+def _parse_unit(unit: str, k: Kind, field: str, original: str, allowed: str):
+    """Parse a unit string with pint and check its dimension; returns the pint unit."""
+    _check_unit_text(unit, field, original, allowed)
+    ureg = _registry()
+    import pint
+
+    try:
+        parsed = ureg.parse_units(unit)
+        probe = ureg.Quantity(1.0, parsed)
+        root = probe.to_root_units()
+    except pint.errors.UndefinedUnitError as exc:
+        names = getattr(exc, "unit_names", None) or (unit,)
+        name = names[0] if isinstance(names, (tuple, list)) else str(names)
+        raise InvalidInput(field, original, allowed,
+                           f"unknown unit '{name}'{_suggest(str(name), k, ureg)}") from None
+    except (pint.errors.PintError, ValueError, TypeError, AttributeError, SyntaxError,
+            KeyError, ZeroDivisionError, IndexError):
+        raise InvalidInput(field, original, allowed, f"cannot read the unit '{unit}'") from None
+    if not _dimension_ok(k, probe, root, ureg):
+        raise InvalidInput(field, original, allowed,
+                           f"'{unit}' is not {k.described} (it is {_describe(probe, root)})")
+    return parsed
+
+
+def _dimension_ok(k: Kind, probe, root, ureg) -> bool:
+    if k.name == "angle":
+        return root.units == ureg.radian
+    if k.name == "angular_velocity":
+        return root.units == ureg.radian / ureg.second
+    if k.name == "fraction":
+        return root.units == ureg.dimensionless
+    return probe.dimensionality == ureg.Quantity(1.0, k.si).dimensionality
+
+
+def _describe(probe, root) -> str:
+    dim = str(probe.dimensionality)
+    if dim == "dimensionless":
+        return "an angle" if "radian" in str(root.units) else "a plain number"
+    if dim == "1 / [time]":
+        return "a frequency (give rad/s, deg/s or rpm for an angular speed)" \
+            if "radian" not in str(root.units) else "an angular speed"
+    return dim
+
+
+def _to_si(mags: np.ndarray, unit: str, k: Kind, field: str, original: str,
+           allowed: str) -> np.ndarray:
+    """Convert magnitudes given in ``unit`` ('' for bare) to the kind's SI unit."""
+    mags = np.asarray(mags, dtype=float)
+    if unit == "":
+        if k.name == "angle":
+            return np.radians(mags)
+        if k.name == "temperature":
+            raise InvalidInput(field, original, allowed,
+                               "a temperature needs a unit (degC, K or degF)")
+        return mags
+    if k.name == "angle" and unit in _DEGREE_SPELLINGS:
+        return np.radians(mags)
+    if unit in k.identity:
+        return mags
+    if k.name == "fraction" and unit in ("%", "percent"):
+        return mags / 100.0
+    parsed = _parse_unit(unit, k, field, original, allowed)
+    ureg = _registry()
+    import pint
+
+    try:
+        out = np.asarray(ureg.Quantity(mags, parsed).to(k.si).magnitude, dtype=float)
+    except (pint.errors.PintError, ValueError, TypeError):
+        raise InvalidInput(field, original, allowed,
+                           f"cannot convert '{unit}' to {k.si}") from None
+    if not np.all(np.isfinite(out)):
+        raise InvalidInput(field, original, allowed, "not a finite number after conversion")
+    return out
+
+
+def _check_bounds(values: np.ndarray, field: str, original: str, allowed: str,
+                  minimum, maximum, include_min: bool, include_max: bool) -> None:
+    if values.size == 0:
+        return
+    lo, hi = float(values.min()), float(values.max())
+    if minimum is not None and (lo < minimum or (not include_min and lo == minimum)):
+        raise InvalidInput(field, original, allowed, "out of range")
+    if maximum is not None and (hi > maximum or (not include_max and hi == maximum)):
+        raise InvalidInput(field, original, allowed, "out of range")
+
+
+def parse_quantity(text, kind: str, field: str, *, allowed: str | None = None,
+                   minimum: float | None = None, maximum: float | None = None,
+                   include_min: bool = True, include_max: bool = True) -> float:
+    """One quantity string (or a number) -> SI float.
+
+    Parameters
+    ----------
+    text : str or float
+        ``"850 mm"``, ``"30 deg"``, ``"0.5"``; a Python number counts as bare.
+    kind : str
+        One of :data:`KINDS`.
+    field : str
+        Name of the input for error messages (``"--length"``, ``"clock.toml: pendulum.length"``).
+    allowed : str, optional
+        What is allowed, in words; derived from the kind when not given.
+    minimum, maximum : float, optional
+        SI bounds; ``include_*`` say whether the bound itself is allowed.
+
+    Raises
+    ------
+    InvalidInput
+        Naming ``field``, the text, what was wrong and what is allowed.
+    """
+    k = _kind(kind)
+    allow = _allowed(k, allowed)
+    original = text
+    if isinstance(text, bool):
+        raise InvalidInput(field, text, allow, "not a number")
+    if isinstance(text, (int, float)):
+        text = repr(float(text))
+    if not isinstance(text, str):
+        raise InvalidInput(field, original, allow, "not a number or a quantity string")
+    mag, unit = split_magnitude(text, field, allow)
+    value = _to_si(np.array([mag]), unit, k, field, original, allow)
+    _check_bounds(value, field, original, allow, minimum, maximum, include_min, include_max)
+    return float(value[0])
+
+
+def _range(part: str, trailing: str, k: Kind, field: str, allow: str,
+           budget: int) -> np.ndarray:
+    segs = part.split(":")
+    if len(segs) != 3:
+        raise InvalidInput(field, part, allow,
+                           "a range needs three parts, start:stop:step (e.g. '0:90:10')")
+    mags, units = [], []
+    for seg in segs:
+        mag, unit = split_magnitude(seg, field, allow)
+        mags.append(mag)
+        units.append(unit or trailing)
+    start, stop, step = mags
+    if units[0] == units[1] == units[2]:
+        unit = units[0]
+    else:  # mixed units: lay the grid out in SI
+        start, stop, step = (float(_to_si(np.array([m]), u, k, field, part, allow)[0])
+                             for m, u in zip(mags, units))
+        unit = None
+    if not step > 0.0:
+        raise InvalidInput(field, part, allow, "the range step must be > 0")
+    if start > stop:
+        raise InvalidInput(field, part, allow, "the range start must not exceed its stop")
+    span = (stop - start) / step
+    if not math.isfinite(span) or span + 1 > budget:
+        raise InvalidInput(field, part, allow, f"the range gives more than {MAX_VALUES} values")
+    # The stop belongs to the grid when it lies on it to within rounding of the division.
+    count = int(math.floor(span + 1e-9)) + 1
+    if count > 1 and abs(span - (count - 1)) <= 1e-9 * span:
+        # On the grid: divide the span, so 0:1:0.1 gives 0.3 and not 0.30000000000000004.
+        grid = start + (stop - start) * (np.arange(count, dtype=float) / (count - 1))
+        grid[-1] = stop
+    else:
+        grid = start + step * np.arange(count, dtype=float)
+    if unit is None:
+        return grid
+    return _to_si(grid, unit, k, field, part, allow)
+
+
+def parse_values(text, kind: str, field: str, *, allowed: str | None = None,
+                 minimum: float | None = None, maximum: float | None = None,
+                 include_min: bool = True, include_max: bool = True,
+                 max_values: int = MAX_VALUES) -> list[float]:
+    """A value, a comma list or a range (or a mixture) -> list of SI floats, in order.
+
+    ``"10, 20, 30"``, ``"0:90:10"`` (start:stop:step; step > 0, start <= stop, the stop is
+    included when it falls on the grid within rounding), ``"0:90:5 deg"``,
+    ``"850, 900 mm"``: a unit on the last part applies to the parts without one.
+    Bounds and errors as :func:`parse_quantity`.
+    """
+    k = _kind(kind)
+    allow = _allowed(k, allowed)
+    if isinstance(text, (int, float)) and not isinstance(text, bool):
+        return [parse_quantity(text, kind, field, allowed=allowed, minimum=minimum,
+                               maximum=maximum, include_min=include_min,
+                               include_max=include_max)]
+    if not isinstance(text, str):
+        raise InvalidInput(field, text, allow, "not a value list")
+    t = _normalise(text)
+    if not t:
+        raise InvalidInput(field, text, allow, "empty value")
+    if len(t) > MAX_LIST_CHARS:
+        raise InvalidInput(field, text, allow, f"longer than {MAX_LIST_CHARS} characters")
+    parts = [p.strip() for p in t.split(",")]
+    if any(not p for p in parts):
+        raise InvalidInput(field, text, allow, "empty item in the list")
+    _, trailing = split_magnitude(parts[-1].split(":")[-1], field, allow)
+    out: list[float] = []
+    for part in parts:
+        budget = max_values - len(out)
+        if ":" in part:
+            vals = _range(part, trailing, k, field, allow, budget)
+        else:
+            mag, unit = split_magnitude(part, field, allow)
+            vals = _to_si(np.array([mag]), unit or trailing, k, field, part, allow)
+        _check_bounds(vals, field, part, allow, minimum, maximum, include_min, include_max)
+        out.extend(float(v) for v in vals)
+        if len(out) > max_values:
+            raise InvalidInput(field, text, allow, f"more than {max_values} values")
+    return out

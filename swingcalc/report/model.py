@@ -1,0 +1,147 @@
+"""Plain-data report objects: what a command found, before any formatting.
+
+A :class:`Report` holds the inputs and summary as :class:`Item` rows and the results as
+:class:`Table` objects. Values are SI floats (or text), keyed by a name that carries the
+unit (``period_s``, ``amplitude_rad``, ``peak_tension_N``, ``period_error_rel`` for a
+relative value). Each row and column also says how to show the value to a person
+(scale, unit, number format), which only the text formats use.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+
+__all__ = ["Item", "Column", "Table", "Report", "show_value"]
+
+
+def show_value(value, scale: float = 1.0, fmt: str = ".6g", unit: str = "",
+               missing: str = "-") -> str:
+    """Text for one value: ``value * scale`` in ``fmt``, then the unit."""
+    if value is None:
+        return missing
+    if isinstance(value, bool):
+        return "yes" if value else "no"
+    if isinstance(value, str):
+        return value
+    v = float(value) * scale
+    if math.isinf(v):
+        text = "inf" if v > 0 else "-inf"
+    elif math.isnan(v):
+        return missing
+    else:
+        text = format(v + 0.0 if v == 0.0 else v, fmt)   # no "-0"
+    return f"{text} {unit}".rstrip() if unit else text
+
+
+@dataclass(frozen=True)
+class Item:
+    """One named value: an input or a summary figure."""
+
+    key: str
+    label: str
+    value: object
+    unit: str = ""          # display unit
+    scale: float = 1.0      # SI value * scale = display value
+    fmt: str = ".6g"
+
+    @property
+    def shown(self) -> str:
+        return show_value(self.value, self.scale, self.fmt, self.unit)
+
+
+@dataclass(frozen=True)
+class Column:
+    """One column of a table: the data key (unit in the name) and how to show it."""
+
+    key: str
+    label: str
+    unit: str = ""
+    scale: float = 1.0
+    fmt: str = ".6g"
+    in_text: bool = True    # shown in terminal/plain-text/markdown tables
+    missing: str = "-"
+
+    def show(self, value) -> str:
+        return show_value(value, self.scale, self.fmt, "", self.missing)
+
+    @property
+    def heading(self) -> str:
+        return f"{self.label} [{self.unit}]" if self.unit else self.label
+
+
+@dataclass(frozen=True)
+class Table:
+    """Rows of values, one per case (e.g. per amplitude).
+
+    ``transpose`` asks text formats to show one column per case and one row per
+    quantity (easier to read when there are many quantities and few cases).
+    """
+
+    name: str
+    title: str
+    columns: tuple
+    rows: tuple
+    transpose: bool = False
+
+    def records(self) -> list[dict]:
+        keys = [c.key for c in self.columns]
+        return [dict(zip(keys, row)) for row in self.rows]
+
+    def text_grid(self) -> tuple[list[str], list[list[str]]]:
+        """(headings, rows of cell text) for the text formats, transposed if asked."""
+        cols = [c for c in self.columns if c.in_text]
+        idx = [self.columns.index(c) for c in cols]
+        cells = [[c.show(row[i]) for c, i in zip(cols, idx)] for row in self.rows]
+        if not self.transpose:
+            return [c.heading for c in cols], cells
+        first, rest = cols[0], cols[1:]
+        heads = [first.label, "unit"] + [f"{r[0]} {first.unit}".strip() for r in cells]
+        body = [[c.label, c.unit] + [r[j + 1] for r in cells] for j, c in enumerate(rest)]
+        return heads, body
+
+
+@dataclass
+class Report:
+    """Everything one command run reports.
+
+    ``cautions`` are safety texts that every format carries; ``warnings`` are about these
+    particular numbers (slack, compression, near the separatrix); ``notes`` are
+    neutral remarks such as a verdict.
+    """
+
+    command: str
+    title: str
+    inputs: list = field(default_factory=list)
+    summary: list = field(default_factory=list)
+    tables: list = field(default_factory=list)
+    notes: list = field(default_factory=list)
+    warnings: list = field(default_factory=list)
+    cautions: list = field(default_factory=list)
+    extra: dict = field(default_factory=dict)   # further JSON members (e.g. a verdict)
+
+    def to_dict(self) -> dict:
+        """One JSON-ready object: SI values, the unit in every key name."""
+        from .. import __version__
+
+        d = {"swingcalc_version": __version__, "command": self.command, "title": self.title,
+             "inputs": {i.key: _plain(i.value) for i in self.inputs},
+             "summary": {i.key: _plain(i.value) for i in self.summary},
+             "tables": {t.name: [{k: _plain(v) for k, v in r.items()} for r in t.records()]
+                        for t in self.tables}}
+        d.update({k: _plain(v) for k, v in self.extra.items()})
+        d["notes"] = list(self.notes)
+        d["warnings"] = list(self.warnings)
+        d["cautions"] = list(self.cautions)
+        return d
+
+
+def _plain(value):
+    """JSON has no inf/NaN: they become null (the text formats say 'inf')."""
+    if isinstance(value, float) and not math.isfinite(value):
+        return None
+    if isinstance(value, (list, tuple)):
+        return [_plain(v) for v in value]
+    if isinstance(value, dict):
+        return {k: _plain(v) for k, v in value.items()}
+    return value
