@@ -490,3 +490,38 @@ def test_harmonic_ratio_arrays_and_large_amplitude_growth():
     r = swingcalc.harmonic_ratio(a, 3)
     assert r.shape == a.shape and np.all(np.diff(r) > 0)
     assert 0.2 < r[-1] < 1 / 3
+
+
+# --- Random states ------------------------------------------------------------------------
+
+from hypothesis import assume, given, settings  # noqa: E402
+from hypothesis import strategies as st  # noqa: E402
+
+
+@settings(max_examples=60, deadline=None)
+@given(theta0=st.floats(-3 * math.pi, 3 * math.pi), omega=st.floats(-15.0, 15.0),
+       t=st.floats(-1e3, 1e3))
+def test_history_random_states_against_mpmath(theta0, omega, t):
+    """Random (theta0, omega0, t), L = 1, g = g_n, against the mpmath libration/rotation
+    state, with the start reduced by the true 2 pi in mpmath. Tolerance: the long-time
+    bound 8 |u| eps, times (1 + h/|1 - h|) because the library rounds w = omega/(2 omega0)
+    (about 2 ulp), which moves the period by ~2 eps h/|1 - h| relative; states within
+    1e-6 of the separatrix energy are left to the dedicated tests above."""
+    L = 1.0
+    omega0 = math.sqrt(G / L)
+    h, _ = _mp_energy(theta0, omega, L, G)
+    hf = float(h)
+    assume(abs(1 - hf) > 1e-6 and hf > 1e-12)
+    with mpmath.workdps(50):
+        turns = mpmath.nint(mpmath.mpf(theta0) / (2 * mpmath.pi))
+        red = mpmath.mpf(theta0) - 2 * mpmath.pi * turns
+        shift = 2 * mpmath.pi * turns
+    ref = mp_libration_state if hf < 1 else mp_rotation_state
+    th, om = ref(red, omega, t, L, G, dps=50)
+    th = float(th + shift)
+    hist = swingcalc.swing_history(theta0, omega, [t], L, G)
+    u = omega0 * abs(t) * math.sqrt(max(hf, 1.0))
+    tol = 8 * u * EPS * (1 + hf / abs(1 - hf)) + math.ulp(abs(th) + 4 * math.pi) * 4 + 1e-13
+    assert abs(hist.angle_rad[0] - th) <= tol, (hist.angle_rad[0], th)
+    assert abs(hist.angular_velocity_rad_s[0] - float(om)) <= 2 * omega0 * tol * math.sqrt(
+        max(hf, 1.0))

@@ -450,3 +450,20 @@ def test_period_scales_with_small_angle_period():
     t = swingcalc.period(0.25, math.radians(60), 9.81)
     expected = 2 * math.pi * math.sqrt(0.25 / 9.81) * float(mp_period_ratio(math.radians(60)))
     assert t == pytest.approx(expected, rel=2e-15)
+
+
+@pytest.mark.parametrize("m, K", [(0.5, 1.8540746773013719184), (0.1, 1.6124413487202193982),
+                                  (0.9, 2.5780921133481731882), (0.99, 3.6956373629898746778)])
+def test_period_ratio_reproduces_k_table_at_amplitude_2_asin_sqrt_m(m, K):
+    """T/T0 = (2/pi) K(m) at A = 2 asin(sqrt m), with K from REFERENCES.md [calc, 20 digits].
+
+    The float A is not exactly 2 asin(sqrt m): its rounding (and that of asin, sqrt) moves
+    T/T0 by cond * 2 eps with cond = A (dT/dA)/T, large as m -> 1 (1e3 at 1 - 1e-6), so the
+    tolerance is 1e-15 + 4 eps cond, cond from mpmath. (m = 1 - 1e-6 is left to the
+    kernel test with p given: here asin near 1 would amplify the rounding of sqrt(m) by
+    1/sqrt(1 - m) = 1e3 on top, so the check would be about the input, not the library.)"""
+    a = 2 * math.asin(math.sqrt(m))
+    with mpmath.workdps(40):
+        f = lambda x: mpmath.log(2 / mpmath.pi * mpmath.ellipk(mpmath.sin(x / 2) ** 2))
+        cond = float(abs(mpmath.diff(f, mpmath.mpf(a)) * a))
+    assert swingcalc.period_ratio(a) == pytest.approx(2 / math.pi * K, rel=1e-15 + 4 * EPS * cond)
