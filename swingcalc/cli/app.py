@@ -4,6 +4,7 @@
 
 from __future__ import annotations
 
+import os
 import sys
 from pathlib import Path
 from typing import Annotated, Optional
@@ -11,6 +12,7 @@ from typing import Annotated, Optional
 import typer
 from typer.core import TyperGroup
 
+from ..designfile import absent
 from ..errors import InvalidInput, SwingcalcError
 from . import options as opt
 
@@ -31,7 +33,8 @@ class _Group(TyperGroup):
 
     def main(self, args=None, prog_name=None, complete_var=None, standalone_mode=True,
              **extra):
-        import typer._click as click
+        # typer 0.29 vendors click as typer._click and exports no UsageError of its own.
+        from typer._click.exceptions import ClickException, UsageError
 
         try:
             rv = super().main(args=args, prog_name=prog_name or PROG,
@@ -41,13 +44,18 @@ class _Group(TyperGroup):
             code = _fail(exc, 2)
         except SwingcalcError as exc:
             code = _fail(f"internal failure: {exc}", 1)
-        except click.exceptions.UsageError as exc:
+        except UsageError as exc:
             cmd = exc.ctx.command_path if exc.ctx is not None else PROG
             code = _fail(f"{exc.format_message()} (see '{cmd} --help')", 2)
-        except click.exceptions.Abort:
-            code = _fail("aborted", 1)
-        except click.exceptions.ClickException as exc:
+        except ClickException as exc:
             code = _fail(exc.format_message(), exc.exit_code)
+        except typer.Abort:
+            code = _fail("aborted", 1)
+        except BrokenPipeError:
+            # The reader went away (e.g. `| head`): stop quietly, as other tools do.
+            devnull = os.open(os.devnull, os.O_WRONLY)
+            os.dup2(devnull, sys.stdout.fileno())
+            code = 1
         if standalone_mode:
             sys.exit(code)
         return code
@@ -93,7 +101,7 @@ def _design(design: Path | None, length, mass, suspension, amplitude, gravity):
     """The design to run: the file, or the bundled default, with the options applied."""
     import dataclasses
 
-    from ..designfile import Design, SimpleBody, absent, load_design, parse_design
+    from ..designfile import Design, SimpleBody, load_design, parse_design
 
     body_options = any(v is not None for v in (length, mass, suspension))
     if design is not None:
@@ -196,6 +204,60 @@ def small_angle(amplitude: Annotated[str, typer.Option(
     tol = opt.tolerance(tolerance)
     n = opt.cycles(cycles)
     _emit(small_angle_report(amps, tol, n), fmt, output, force)
+
+
+@app.command("motion")
+def motion(angle: Annotated[str, typer.Option(
+               "--angle", metavar="ANGLE", help="Start angle from the downward vertical "
+               "(bare: deg).")] = "0",
+           angular_speed: Annotated[Optional[str], typer.Option(
+               "--angular-speed", metavar="RATE",
+               help="Start angular speed, e.g. '1.2 rad/s', '90 deg/s' (bare: rad/s).")] = None,
+           bottom_speed: Annotated[Optional[str], typer.Option(
+               "--bottom-speed", metavar="SPEED",
+               help="Instead: start at the bottom with this bob speed, e.g. '6 m/s'.")] = None,
+           length: opt.Length = None, gravity: opt.Gravity = None,
+           duration: Annotated[Optional[str], typer.Option(
+               "--duration", metavar="TIME",
+               help="Tabulate the exact time history over this time, e.g. '4 s'.")] = None,
+           step: Annotated[Optional[str], typer.Option(
+               "--step", metavar="TIME", help="Time step of the history (default: duration/40).")]
+           = None,
+           fmt: opt.Format = None, output: opt.Output = None, force: opt.Force = False) -> None:
+    """Classify a start state (libration, rotation, separatrix, rest, balanced) and
+    optionally tabulate its exact time history."""
+    import numpy as np
+
+    from ..quantity import parse_quantity
+    from ..report.builders import motion_report
+
+    _precheck(fmt, output, force)
+    L = opt.length(length) if length is not None else 1.0
+    g, _ = opt.gravity(gravity)
+    theta = parse_quantity(angle, "angle", "--angle",
+                           allowed="a finite angle, e.g. '30 deg', '0.5 rad' (bare: deg)")
+    if angular_speed is not None and bottom_speed is not None:
+        raise InvalidInput("--bottom-speed", bottom_speed,
+                           "either --angular-speed or --bottom-speed", "give only one of them")
+    omega = 0.0
+    if angular_speed is not None:
+        omega = parse_quantity(angular_speed, "angular_velocity", "--angular-speed")
+    if bottom_speed is not None:
+        if theta != 0.0:
+            raise InvalidInput("--angle", angle, "0 (or leave it out) with --bottom-speed",
+                               "--bottom-speed starts the swing at the bottom")
+        omega = parse_quantity(bottom_speed, "speed", "--bottom-speed") / L
+    times = None
+    if duration is not None:
+        T = opt.positive_time(duration, "--duration")
+        dt = opt.positive_time(step, "--step") if step is not None else T / 40.0
+        if T / dt > 10_000:
+            raise InvalidInput("--step", step, "at most 10000 steps over --duration",
+                               "too many samples")
+        times = np.arange(0.0, T + 0.5 * dt, dt)
+    elif step is not None:
+        raise absent("--duration", "a time, e.g. '4 s', with --step", "--step needs --duration")
+    _emit(motion_report(theta, omega, L, g, times), fmt, output, force)
 
 
 def main(argv=None) -> None:

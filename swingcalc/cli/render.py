@@ -39,17 +39,7 @@ def print_report(report) -> None:
         console.print(grid)
         console.print()
     for t in report.tables:
-        heads, rows = t.text_grid()
-        table = Table(title=t.title, title_justify="left", title_style="bold",
-                      box=box.SIMPLE_HEAD, pad_edge=False)
-        lead = 2 if t.transpose else 1
-        for j, h in enumerate(heads):
-            table.add_column(h, justify="left" if j < lead else "right",
-                             style="dim" if (t.transpose and j == 1) else None,
-                             no_wrap=j >= lead)
-        for r in rows:
-            table.add_row(*r)
-        console.print(table)
+        console.print(_table(t, Table, box))
     for note in report.notes:
         style = "dim"
         if note.startswith("Verdict"):
@@ -61,6 +51,33 @@ def print_report(report) -> None:
         console.print()
     if report.cautions:
         console.print(_bullets(Table, "CAUTION", "bold red", report.cautions))
+
+
+def _table(t, Table, box):
+    """A rich table whose columns are never narrower than their values: long headings
+    wrap onto several lines instead (units on a line of their own)."""
+    import textwrap
+
+    heads, rows = t.text_grid()
+    lead = 2 if t.transpose else 1
+    if not t.transpose:
+        cols = [c for c in t.columns if c.in_text]
+        heads = [(c.label, c.unit) for c in cols]
+    else:
+        heads = [(h, "") for h in heads]
+    table = Table(title=t.title, title_justify="left", title_style="bold",
+                  box=box.SIMPLE_HEAD, pad_edge=False)
+    for j, (label, unit) in enumerate(heads):
+        width = max([len(r[j]) for r in rows] + [len(unit) + 2 if unit else 0, 6])
+        text = label if t.transpose else textwrap.fill(label, width=max(width, 10))
+        if unit:
+            text += f"\n[{unit}]"
+        table.add_column(text.replace("[", "\\["), justify="left" if j < lead else "right",
+                         style="dim" if (t.transpose and j == 1) else None,
+                         no_wrap=True, min_width=width if j >= lead or not t.transpose else None)
+    for r in rows:
+        table.add_row(*r)
+    return table
 
 
 def _bullets(Table, head: str, style: str, texts):
