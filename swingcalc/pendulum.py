@@ -8,7 +8,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
-from ._validate import positive_scalar
+from ._validate import positive_scalar, real_scalar
 from .constants import SECONDS_PER_HOUR, STANDARD_GRAVITY
 from .errors import InvalidInput
 from .kernels import swing as _k
@@ -32,7 +32,7 @@ def slack_angle(energy_ratio):
     the swing stays under 90 deg and the tension stays positive; above, the bob passes
     the top with tension to spare (v_bottom^2 >= 5 g L).
     """
-    h = float(energy_ratio)
+    h = real_scalar(energy_ratio, "energy_ratio", "a finite energy ratio E/E_sep >= 0", low=0.0)
     if not (0.5 < h < 1.25):
         return None
     return math.acos((2.0 - 4.0 * h) / 3.0)
@@ -96,7 +96,8 @@ def simple_pendulum(length, amplitude, mass=1.0, gravity=STANDARD_GRAVITY, suspe
     bottom, minimum tension m g cos A at the ends (energy conservation with the radial
     equation of motion). Over the top: bottom speed sqrt(4 g L) with a rigid rod
     (zero speed at the top), sqrt(5 g L) with a flexible suspension (zero tension at
-    the top).
+    the top). A flexible suspension carries no compression, so its minimum tension is
+    reported as 0 once it goes slack (with a warning).
 
     Examples
     --------
@@ -143,7 +144,8 @@ def simple_pendulum(length, amplitude, mass=1.0, gravity=STANDARD_GRAVITY, suspe
         beats_per_hour=2.0 * SECONDS_PER_HOUR / t,
         peak_angular_speed_rad_s=peak_omega, peak_speed_m_s=peak_omega * L,
         peak_tension_N=weight * (1.0 + 4.0 * m_par),
-        min_tension_N=weight * math.cos(a),
+        min_tension_N=(max(0.0, weight * math.cos(a)) if suspension == "flexible"
+                       else weight * math.cos(a)),
         energy_J=2.0 * weight * L * m_par,
         separatrix_margin=p_par,
         over_top_speed_rigid_m_s=2.0 * math.sqrt(g * L),

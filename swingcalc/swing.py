@@ -389,8 +389,8 @@ class SwingState:
     top_angular_speed_rad_s : float or None
         |omega| at the top in rotation [rad/s], None otherwise.
     period_s : float
-        Libration period, or the time of one revolution; inf on the separatrix;
-        the small-angle period at rest.
+        Libration period, or the time of one revolution; inf on the separatrix (inside
+        the tolerance band); the small-angle period exactly at rest.
     direction : int
         +1 or -1 for the sense of a rotation, 0 otherwise.
     """
@@ -420,7 +420,7 @@ class SwingState:
         return dict(self.__dict__)
 
 
-def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, tolerance=1e-12):
+def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, tolerance=1e-14):
     """Classify the motion that starts from ``(angle, angular_velocity)``.
 
     Parameters
@@ -435,7 +435,10 @@ def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, toleranc
         [m/s^2].
     tolerance : float
         Band on the energy ratio h = E/E_sep within which the state counts as on the
-        separatrix (|1 - h| <= tolerance) or at rest (h <= tolerance). Default 1e-12.
+        separatrix (|1 - h| <= tolerance) or at rest (h <= tolerance). The default,
+        1e-14, is about 50 times the rounding of h itself, so only states on the
+        separatrix to within rounding count as on it; as an angle from the top it is
+        2 sqrt(tolerance) = 2e-7 rad.
 
     Returns
     -------
@@ -455,29 +458,57 @@ def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, toleranc
     top = None
     direction = 0
     amplitude = None
-    if h <= tol:
-        regime, amplitude, per = Regime.REST, 0.0, t0
-        if h > 0.0:
-            amplitude = 2.0 * math.asin(math.sqrt(h))
-    elif abs(q) <= tol:
-        if w * w <= tol:
-            regime = Regime.BALANCED
-        else:
-            regime = Regime.SEPARATRIX
-        amplitude, per = math.pi, math.inf
-    elif q > 0.0:
-        regime = Regime.LIBRATION
+    # Energy ratio and margin are always the exact ones of the state; inside the
+    # separatrix band the motion is reported as the separatrix (unbounded period).
+    if q > 0.0:
         amplitude = 2.0 * math.atan2(math.sqrt(h), math.sqrt(q))
         per = t0 * float(_k.period_ratio(q))
-    else:
-        regime = Regime.ROTATION
+    elif q < 0.0:
         direction = 1 if om > 0 else -1
         top = 2.0 * omega0 * math.sqrt(-q)
         per = t0 * float(_k.rotation_ratio(h, q))
+    else:
+        amplitude, per = math.pi, math.inf
+    if h <= tol:
+        regime = Regime.REST
+        per = t0 if h == 0.0 else per
+        amplitude, direction = (amplitude or 0.0), 0
+        message = f"at rest at the bottom (energy ratio {h:.3g} <= {tol:.3g})"
+    elif abs(q) <= tol:
+        regime = Regime.BALANCED if w * w <= tol else Regime.SEPARATRIX
+        amplitude, per, top, direction = math.pi, math.inf, None, 0
+        where = "balanced at the top" if regime == Regime.BALANCED else "on the separatrix"
+        message = f"{where}: |1 - E/E_sep| = {abs(q):.3g} <= {tol:.3g}"
+    elif q > 0.0:
+        regime = Regime.LIBRATION
+        message = f"libration, amplitude {math.degrees(amplitude):.6g} deg"
+    else:
+        regime = Regime.ROTATION
+        message = f"rotation ({'+' if direction > 0 else '-'}), over the top"
     return SwingState(regime=regime, angle_rad=th, angular_velocity_rad_s=om, length_m=L,
                       gravity_m_s2=g, tolerance=tol, energy_ratio=h, separatrix_margin=q,
                       amplitude_rad=amplitude, bottom_angular_speed_rad_s=bottom,
-                      top_angular_speed_rad_s=top, period_s=per, direction=direction)
+                      top_angular_speed_rad_s=top, period_s=per, direction=direction,
+                      message=message)
+
+
+def _reduced_half_angle(theta):
+    """sin and cos of theta_r / 2 for theta = theta_r + 2 pi n with |theta_r| <= pi, and n.
+
+    Taken from sin(theta/2), cos(theta/2) of the float theta itself (the libm reduction
+    is exact) times (-1)^n, never from theta - 2 pi n in floating point: 2 * math.pi is
+    2.4e-16 short of 2 pi, which would put a start at math.pi (1.2e-16 below the top)
+    on the far side of it.
+    """
+    s = math.sin(0.5 * theta)
+    c = math.cos(0.5 * theta)
+    n = round(theta / (2.0 * math.pi))
+    if n % 2:
+        s, c = -s, -c
+    if c < 0.0:  # theta_r beyond +-pi: one turn more (or less)
+        n += 1 if s > 0.0 else -1
+        s, c = -s, -c
+    return s, c, n
 
 
 @dataclass(frozen=True)
@@ -537,10 +568,9 @@ def swing_history(angle, angular_velocity, times, length, gravity=STANDARD_GRAVI
     omega0 = math.sqrt(state.gravity_m_s2 / state.length_m)
     tau = omega0 * t
     th0 = state.angle_rad
-    turns = math.floor((th0 + math.pi) / (2.0 * math.pi))
-    th_red = th0 - 2.0 * math.pi * turns
     w = state.angular_velocity_rad_s / (2.0 * omega0)
-    s, c, h, q = (float(v) for v in _k.state_parameters(th_red, w))
+    s, c, turns = _reduced_half_angle(th0)
+    h, q = state.energy_ratio, state.separatrix_margin
     if h == 0.0 or (q == 0.0 and w == 0.0):
         theta = np.full_like(t, th0)
         wt = np.zeros_like(t)

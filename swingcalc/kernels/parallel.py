@@ -38,6 +38,8 @@ def _executor(workers):
         if _pool is None or _pool._max_workers != workers:
             from concurrent.futures import ThreadPoolExecutor
 
+            if _pool is not None:
+                _pool.shutdown(wait=False)
             _pool = ThreadPoolExecutor(max_workers=workers, thread_name_prefix="swingcalc")
         return _pool
 

@@ -6,8 +6,10 @@ Conventions (fixed here, used by every caller):
 - the state is (theta, w) with w = omega / (2 omega0);
 - h = w^2 + sin^2(theta/2) is the energy relative to the separatrix energy
   (E / E_sep with E measured from the bottom, E_sep = 2 m g L);
-- q = 1 - h = cos^2(theta/2) - w^2, formed as (|c| - |w|)(|c| + |w|) so that it keeps
-  its relative accuracy next to the separatrix (q -> 0);
+- q = 1 - h = cos^2(theta/2) - w^2, formed as (|c| - |w|)(|c| + |w|), which adds no
+  cancellation to the rounding of c and w themselves (from the bottom, c = 1, or from a
+  turning point, w = 0, q keeps full relative accuracy as q -> 0; from a general state
+  its relative error is about eps / |q|);
 - in libration (0 <= h < 1) the elliptic parameter is m = h, its complement p = q;
   in rotation (h > 1) it is m = 1/h, complement p = -q/h.
 
@@ -31,7 +33,7 @@ __all__ = [
     "period_excess",
     "rotation_ratio",
     "time_from_bottom",
-    "x_minus_sin",
+    "x_minus_sin_over_cube",
     "theta_series_coefficients",
     "excess_for_logit",
     "libration_history",
@@ -83,7 +85,7 @@ def _k_series_coefficients(terms: int = _SERIES_TERMS) -> np.ndarray:
 
 
 def period_excess(m, p):
-    """T/T0 - 1 with full relative accuracy for every amplitude (also as m -> 0)."""
+    """T/T0 - 1 to about 1e-15 relative for every amplitude (also as m -> 0)."""
     m = np.asarray(m, dtype=float)
     p = np.asarray(p, dtype=float)
     out = period_ratio(p) - 1.0
@@ -148,23 +150,23 @@ def time_from_bottom(s, gap, h, c):
     return s * carlson_rf(h * c * c, gap, h)
 
 
-def x_minus_sin(x):
-    """x - sin(x) without cancellation for small |x| (Taylor series to x^25 for |x| < 1)."""
+def x_minus_sin_over_cube(x):
+    """(x - sin x) / x^3 without cancellation or underflow (Taylor series for |x| < 1)."""
     x = np.asarray(x, dtype=float)
-    out = x - np.sin(x)
+    with np.errstate(invalid="ignore", divide="ignore"):
+        out = (x - np.sin(x)) / x**3
     small = np.abs(x) < 1.0
     if np.any(small):
         xs = x[small] if out.ndim else x
         x2 = xs * xs
-        # x^3/3! - x^5/5! + ... - x^25/25!, by Horner from the smallest term.
+        # 1/3! - x^2/5! + x^4/7! - ... - x^22/25!, by Horner from the smallest term.
         acc = np.zeros_like(xs)
         for j in range(12, 0, -1):
             acc = acc * x2 + (-1) ** (j + 1) / _factorial(2 * j + 1)
-        val = acc * xs * x2
         if out.ndim:
-            out[small] = val
+            out[small] = acc
         else:
-            out = val
+            out = acc
     return out
 
 
