@@ -135,7 +135,7 @@ def _design(design: Path | None, length, mass, suspension, amplitude, gravity):
 
 
 DesignArg = Annotated[Optional[Path], typer.Argument(
-    metavar="[DESIGN.toml]", help="Design file (TOML). Default: the bundled example clock.",
+    metavar="DESIGN.toml", help="Design file (TOML). Default: the bundled example clock.",
     show_default=False)]
 
 

@@ -39,7 +39,8 @@ def print_report(report) -> None:
         console.print(grid)
         console.print()
     for t in report.tables:
-        console.print(_table(t, Table, box))
+        for table in _tables(t, Table, box, console.width):
+            console.print(table)
     for note in report.notes:
         style = "dim"
         if note.startswith("Verdict"):
@@ -53,31 +54,51 @@ def print_report(report) -> None:
         console.print(_bullets(Table, "CAUTION", "bold red", report.cautions))
 
 
-def _table(t, Table, box):
-    """A rich table whose columns are never narrower than their values: long headings
-    wrap onto several lines instead (units on a line of their own)."""
+def _tables(t, Table, box, console_width: int):
+    """Rich tables for one report table. Columns are never narrower than their values:
+    long headings wrap instead (units on a line of their own), and when the columns do not
+    fit the screen they are split over several tables, each repeating the leading column(s)."""
     import textwrap
 
     heads, rows = t.text_grid()
     lead = 2 if t.transpose else 1
     if not t.transpose:
-        cols = [c for c in t.columns if c.in_text]
-        heads = [(c.label, c.unit) for c in cols]
+        heads = [(c.label, c.unit) for c in t.columns if c.in_text]
     else:
         heads = [(h, "") for h in heads]
-    table = Table(title=t.title, title_justify="left", title_style="bold",
-                  box=box.SIMPLE_HEAD, pad_edge=False)
+    specs = []
     for j, (label, unit) in enumerate(heads):
-        width = max([len(r[j]) for r in rows] + [len(unit) + 2 if unit else 0, 6])
+        width = max([len(r[j]) for r in rows] + [len(unit) + 2 if unit else 0,
+                                                  len(label) if t.transpose else 6])
         text = label if t.transpose else textwrap.fill(label, width=max(width, 10))
         if unit:
             text += f"\n[{unit}]"
-        table.add_column(text.replace("[", "\\["), justify="left" if j < lead else "right",
-                         style="dim" if (t.transpose and j == 1) else None,
-                         no_wrap=True, min_width=width if j >= lead or not t.transpose else None)
-    for r in rows:
-        table.add_row(*r)
-    return table
+        width = max(width, *(len(line) for line in text.splitlines()))
+        specs.append((text.replace("[", "\\["), width))
+    chunks, current, used = [], [], sum(w + 3 for _, w in specs[:lead])
+    for j in range(lead, len(specs)):
+        w = specs[j][1] + 3  # padding 1 + 1 and the column divider
+        if current and used + w > console_width:
+            chunks.append(current)
+            current, used = [], sum(w2 + 3 for _, w2 in specs[:lead])
+        current.append(j)
+        used += w
+    chunks.append(current)
+    out = []
+    for n, chunk in enumerate(chunks):
+        idx = list(range(lead)) + chunk
+        title = t.title if n == 0 else f"{t.title} (continued)"
+        table = Table(title=title, title_justify="left", title_style="bold",
+                      box=box.SIMPLE_HEAD, pad_edge=False)
+        for j in idx:
+            text, width = specs[j]
+            table.add_column(text, justify="left" if j < lead else "right",
+                             style="dim" if (t.transpose and j == 1) else None,
+                             no_wrap=True, min_width=width)
+        for r in rows:
+            table.add_row(*[r[j] for j in idx])
+        out.append(table)
+    return out
 
 
 def _bullets(Table, head: str, style: str, texts):
