@@ -14,7 +14,7 @@ from .model import Column, Item, Report, Table
 __all__ = ["pendulum_report", "periods_report", "small_angle_report", "motion_report"]
 
 _DEG = 180.0 / math.pi
-_PCT = dict(unit="%", scale=100.0, fmt=".3g")
+_PCT = dict(unit="%", scale=100.0, fmt="#.3g")
 # Up to this many cases a text table shows one column per case (quantities down the side).
 _TRANSPOSE_MAX = 8
 _ERROR_NOTE = ("Errors are (approximation - exact) / exact: negative means the "
@@ -44,27 +44,27 @@ def pendulum_report(design) -> Report:
     clock = design.context == "clock"
     flexible = b.suspension == "flexible"
     cols = _amplitude_columns() + [
-        Column("period_s", "period T", "s", fmt=".7g"),
+        Column("period_s", "period T", "s", fmt="#.7g"),
         Column("period_ratio", "T / T0", "", fmt=".7f"),
         Column("small_angle_period_error_rel", "small-angle period error", **_PCT),
-        Column("frequency_hz", "frequency", "Hz", fmt=".6g"),
-        Column("beats_per_hour", "beats per hour", "", fmt=".6g"),
+        Column("frequency_hz", "frequency", "Hz", fmt="#.6g"),
+        Column("beats_per_hour", "beats per hour", "", fmt="#.6g"),
     ]
     if clock:
         cols.append(Column("clock_rate_s_per_day", "rate if regulated to T0", "s/day",
-                           fmt=".4g"))
+                           fmt="#.4g"))
     cols += [
-        Column("peak_angular_speed_rad_s", "peak angular speed", "rad/s", fmt=".4g"),
-        Column("peak_speed_m_s", "peak bob speed", "m/s", fmt=".4g"),
-        Column("peak_tension_N", "peak tension (bottom)", "N", fmt=".5g"),
-        Column("peak_tension_per_weight", "peak tension / weight", "", fmt=".4g"),
-        Column("min_tension_N", "least tension (ends)", "N", fmt=".5g"),
-        Column("energy_J", "swing energy", "J", fmt=".5g"),
+        Column("peak_angular_speed_rad_s", "peak angular speed", "rad/s", fmt="#.4g"),
+        Column("peak_speed_m_s", "peak bob speed", "m/s", fmt="#.4g"),
+        Column("peak_tension_N", "peak tension (bottom)", "N", fmt="#.5g"),
+        Column("peak_tension_per_weight", "peak tension / weight", "", fmt="#.4g"),
+        Column("min_tension_N", "least tension (ends)", "N", fmt="#.5g"),
+        Column("energy_J", "swing energy", "J", fmt="#.5g"),
         Column("zero_tension_angle_deg",
                "slack angle" if flexible else "rod in compression beyond", "deg",
                fmt=".4g", missing="never"),
         Column("zero_tension_angle_rad", "zero-tension angle", "rad", in_text=False),
-        Column("separatrix_margin", "separatrix margin 1 - E/E_sep", "", fmt=".4g"),
+        Column("separatrix_margin", "separatrix margin 1 - E/E_sep", "", fmt="#.4g"),
     ]
     rows, warnings = [], []
     for a, r in zip(design.amplitudes_rad, results):
@@ -108,7 +108,7 @@ def periods_report(amplitudes, length: float, gravity: float, gravity_given: str
     t0 = small_angle_period(length, gravity)
     cols = _amplitude_columns() + [
         Column("period_ratio", "T / T0", "", fmt=".8f"),
-        Column("period_s", "period T", "s", fmt=".7g"),
+        Column("period_s", "period T", "s", fmt="#.7g"),
         Column("small_angle_period_s", "small-angle period T0", "s", in_text=False),
         Column("small_angle_period_error_rel", "T0 error", **_PCT)]
     for n in SERIES_TERMS:
@@ -153,9 +153,9 @@ def small_angle_report(amplitudes, tolerance: float, cycles: float) -> Report:
              Column("bound_upper_period_ratio", "T/T0 upper bound", "", fmt=".8f"),
              Column("peak_speed_error_rel", "peak speed error", **_PCT),
              Column("peak_tension_error_rel", "peak tension error", **_PCT),
-             Column("phase_error_deg", f"phase lead after {cycles:g} cycles", "deg", fmt=".4g"),
+             Column("phase_error_deg", f"phase lead after {cycles:g} cycles", "deg", fmt="#.4g"),
              Column("phase_error_rad", "phase lead", "rad", in_text=False),
-             Column("clock_rate_s_per_day", "clock rate", "s/day", fmt=".4g"),
+             Column("clock_rate_s_per_day", "clock rate", "s/day", fmt="#.4g"),
              Column("within_tolerance", "within tolerance", "")]
     rows, notes = [], []
     for c in checks:
@@ -227,9 +227,9 @@ def motion_report(angle: float, angular_velocity: float, length: float, gravity:
                      for t, th, w in zip(h.time_s, h.angle_rad, h.angular_velocity_rad_s))
         tables.append(Table("history", "Exact time history", (
             Column("time_s", "time", "s", fmt=".6g"),
-            Column("angle_deg", "angle", "deg", fmt=".6g"),
+            Column("angle_deg", "angle", "deg", fmt=".4f"),
             Column("angle_rad", "angle", "rad", in_text=False),
-            Column("angular_velocity_rad_s", "angular velocity", "rad/s", fmt=".6g")), rows))
+            Column("angular_velocity_rad_s", "angular velocity", "rad/s", fmt=".6f")), rows))
     notes = [s.message] if s.message else []
     return Report("motion", "Motion from an initial state", inputs, summary, tables,
                   notes=notes)
