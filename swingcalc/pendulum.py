@@ -128,8 +128,9 @@ def simple_pendulum(length, amplitude, mass=1.0, gravity=STANDARD_GRAVITY, suspe
         deg = math.degrees(zero_angle)
         if suspension == "flexible":
             warnings.append(
-                f"the suspension goes slack at {deg:.2f} deg, before the {math.degrees(a):.2f} deg "
-                "amplitude: the bob then falls freely and these results do not hold past it")
+                f"the suspension goes slack at {deg:.2f} deg, before the end of the swing: the "
+                "bob then falls freely, the suspension snatches taut again, and these results "
+                "do not hold past that angle")
         else:
             warnings.append(
                 f"the rod is in compression beyond {deg:.2f} deg: size it (and its joints) "
