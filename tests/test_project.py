@@ -38,3 +38,13 @@ def test_docstring_examples_run(module):
     result = doctest.testmod(module, extraglobs={"math": __import__("math")}, verbose=False)
     assert result.failed == 0
     assert result.attempted > 0
+
+
+@pytest.mark.skipif(not (ROOT / "README.md").exists(), reason="run from a source checkout")
+def test_readme_library_examples_run():
+    """The README's ``>>>`` examples print what the library returns (values quoted there
+    are REFERENCES.md's: T/T0(90 deg) = 1.18034059901609623 [calc], and the 0.1 % limit
+    7.2477 deg with the (T - T0)/T definition)."""
+    result = doctest.testfile(str(ROOT / "README.md"), module_relative=False, verbose=False)
+    assert result.failed == 0
+    assert result.attempted >= 3
