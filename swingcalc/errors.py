@@ -8,7 +8,16 @@ as it is.
 
 from __future__ import annotations
 
-__all__ = ["SwingcalcError", "InvalidInput", "SolverFailure"]
+__all__ = ["SwingcalcError", "InvalidInput", "SolverFailure", "MISSING"]
+
+
+class _Missing:
+    def __repr__(self) -> str:
+        return "MISSING"
+
+
+#: Stands for an absent input in :class:`InvalidInput` (so no "(got ...)" is shown).
+MISSING = _Missing()
 
 
 class SwingcalcError(Exception):
@@ -24,7 +33,8 @@ class InvalidInput(SwingcalcError, ValueError):
         Name of the input as the caller knows it (``"amplitude"``, ``"--length"``,
         ``"design.toml: swing.amplitude"``).
     value : object
-        The offending value, as given.
+        The offending value, as given, or :data:`MISSING` when the input is absent
+        (the message then shows no value).
     allowed : str
         What would have been accepted, in words (``"a finite angle in [0, 180) deg"``).
     problem : str, optional
@@ -36,10 +46,12 @@ class InvalidInput(SwingcalcError, ValueError):
         self.value = value
         self.allowed = allowed
         self.problem = problem
-        shown = _short(value)
-        head = f"{field}: {problem}" if problem else f"{field}: invalid value {shown}"
-        if problem and shown:
-            head = f"{head} (got {shown})"
+        if value is MISSING:
+            head = f"{field}: {problem or 'missing'}"
+        elif problem:
+            head = f"{field}: {problem} (got {_short(value)})"
+        else:
+            head = f"{field}: invalid value {_short(value)}"
         super().__init__(f"{head}; allowed: {allowed}")
 
     def renamed(self, field: str) -> "InvalidInput":

@@ -15,7 +15,7 @@ from scipy import special
 
 from ._validate import finalize, positive_scalar, real_array, real_scalar
 from .constants import STANDARD_GRAVITY
-from .errors import InvalidInput, SolverFailure
+from .errors import MISSING, InvalidInput, SolverFailure
 from .kernels import swing as _k
 from .kernels.parallel import blockwise
 
@@ -316,7 +316,7 @@ def time_from_bottom(angle, length, *, amplitude=None, bottom_speed=None,
     as ln(1 / |1 - h|) / 2 / omega0 for angles near the top, when h -> 1.
     """
     if (amplitude is None) == (bottom_speed is None):
-        raise InvalidInput("amplitude/bottom_speed", None,
+        raise InvalidInput("amplitude/bottom_speed", MISSING,
                            "exactly one of amplitude or bottom_speed", "give one of them")
     L = positive_scalar(length, "length", "m")
     g = positive_scalar(gravity, "gravity", "m/s^2")
