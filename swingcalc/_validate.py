@@ -3,12 +3,20 @@
 from __future__ import annotations
 
 import math
+import sys
 
 import numpy as np
 
-from .errors import InvalidInput
+from .errors import MISSING, InvalidInput
 
-__all__ = ["real_array", "real_scalar", "positive_scalar", "finalize"]
+__all__ = ["AMPLITUDE_ALLOWED", "amplitudes", "amplitude_scalar", "real_array", "real_scalar",
+           "positive_array", "positive_scalar", "finite_result", "finalize"]
+
+#: What a libration amplitude may be, in the words every amplitude error uses.
+AMPLITUDE_ALLOWED = "a finite libration amplitude in [0, pi) rad, i.e. [0, 180) deg"
+# Physical magnitudes must be normal floats: a subnormal length or gravity makes
+# sqrt(g/L) overflow and every result meaningless.
+_TINY = sys.float_info.min
 
 
 def real_array(value, field: str, allowed: str, *, low=None, high=None,
@@ -44,9 +52,41 @@ def real_scalar(value, field: str, allowed: str, **limits):
     return float(arr)
 
 
-def positive_scalar(value, field: str, unit: str):
-    """A finite, strictly positive float (a length, a gravity, a mass)."""
-    return real_scalar(value, field, f"a finite number > 0 [{unit}]", low=0.0, low_open=True)
+def amplitudes(value, field: str = "amplitude"):
+    """``(array, is_scalar)`` of libration amplitudes in [0, pi) rad."""
+    return real_array(value, field, AMPLITUDE_ALLOWED, low=0.0, high=math.pi, high_open=True)
+
+
+def amplitude_scalar(value, field: str = "amplitude") -> float:
+    """One libration amplitude in [0, pi) rad."""
+    return real_scalar(value, field, AMPLITUDE_ALLOWED, low=0.0, high=math.pi, high_open=True)
+
+
+def _positive_allowed(unit: str) -> str:
+    return f"a finite number > 0 (at least {_TINY:.3g}) [{unit}]"
+
+
+def positive_array(value, field: str, unit: str):
+    """``(array, is_scalar)`` of finite, strictly positive normal floats."""
+    return real_array(value, field, _positive_allowed(unit), low=_TINY)
+
+
+def positive_scalar(value, field: str, unit: str) -> float:
+    """A finite, strictly positive normal float (a length, a gravity, a mass)."""
+    return real_scalar(value, field, _positive_allowed(unit), low=_TINY)
+
+
+def finite_result(values, fields: str, allowed: str):
+    """Raise :class:`InvalidInput` naming the inputs if any result overflowed or is NaN.
+
+    Inputs can each be finite and still give an infinite result (a length of 1e300 m
+    with a mass of 1e300 kg); the library never hands such a result back.
+    """
+    for v in values:
+        if v is not None and not np.all(np.isfinite(v)):
+            raise InvalidInput(fields, MISSING, allowed,
+                               "the inputs are too large or too small: a result overflows")
+    return values
 
 
 def finalize(result, scalar: bool):

@@ -13,11 +13,11 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from ._validate import finalize, real_array, real_scalar
+from ._validate import amplitudes, finalize, real_array, real_scalar
 from .constants import SECONDS_PER_DAY
 from .errors import InvalidInput
 from .kernels import swing as _k
-from .swing import _amplitudes, amplitude_for_period_excess
+from .swing import amplitude_for_period_excess, max_period_excess
 
 __all__ = [
     "SERIES_TERMS",
@@ -44,6 +44,10 @@ _TAIL_LIMIT = 1.0
 _TAIL_TERMS = 24
 
 
+def _excess(a):
+    return _k.period_excess(*_k.amplitude_parameters(a))
+
+
 def small_angle_period_error(amplitude):
     """Relative error (T0 - T) / T of the small-angle period (negative: T0 is short).
 
@@ -52,9 +56,8 @@ def small_angle_period_error(amplitude):
     amplitude : float or array_like
         Amplitude [rad] in [0, pi).
     """
-    a, scalar = _amplitudes(amplitude)
-    m, p = _k.amplitude_parameters(a)
-    e = _k.period_excess(m, p)
+    a, scalar = amplitudes(amplitude)
+    e = _excess(a)
     return finalize(-e / (1.0 + e), scalar)
 
 
@@ -69,7 +72,7 @@ def series_period_ratio(amplitude, terms=3):
     T/T0 = 1 + A^2/16 + 11 A^4/3072 + 173 A^6/737280 + ... (OEIS A223067 / A223068).
     """
     _check_terms(terms)
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     coef = _k.theta_series_coefficients(terms)
     a2 = a * a
     acc = np.zeros_like(a2)
@@ -81,9 +84,8 @@ def series_period_ratio(amplitude, terms=3):
 def series_period_error(amplitude, terms=3):
     """Relative error (T_series - T) / T of the ``terms``-term series (negative: short)."""
     _check_terms(terms)
-    a, scalar = _amplitudes(amplitude)
-    m, p = _k.amplitude_parameters(a)
-    excess = _k.period_excess(m, p)
+    a, scalar = amplitudes(amplitude)
+    excess = _excess(a)
     ratio = 1.0 + excess
     coef = [float(c) for c in _k.theta_series_coefficients(_TAIL_TERMS)]
     a2 = a * a
@@ -91,18 +93,14 @@ def series_period_error(amplitude, terms=3):
     for c in reversed(coef[1:terms]):
         head = (head + c) * a2
     out = (head - excess) / ratio
-    small = a < _TAIL_LIMIT
-    if np.any(small):
-        a2s = a2[small] if np.ndim(a2) else a2
-        tail = np.zeros_like(a2s)
+
+    def tail(a2_small, ratio_small):
+        acc = np.zeros_like(a2_small)
         for c in reversed(coef[terms:]):
-            tail = (tail + c) * a2s
-        tail = tail * a2s ** (terms - 1)
-        val = -tail / (ratio[small] if np.ndim(ratio) else ratio)
-        if np.ndim(out):
-            out[small] = val
-        else:
-            out = val
+            acc = (acc + c) * a2_small
+        return -acc * a2_small ** (terms - 1) / ratio_small
+
+    out = _k.fill_where(out, a < _TAIL_LIMIT, tail, a2, ratio)
     return finalize(out, scalar)
 
 
@@ -131,7 +129,7 @@ def period_ratio_bounds(amplitude, method="series", steps=1):
     -------
     lower, upper : float or ndarray
     """
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     m, p = _k.amplitude_parameters(a)
     if method == "series":
         lower = 1.0 + 0.25 * m
@@ -158,7 +156,7 @@ def peak_speed_error(amplitude):
     the error is (A/2) / sin(A/2) - 1 = (x - sin x) / sin x, x = A/2 (positive: the
     linear model overstates the speed).
     """
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     x = 0.5 * a
     with np.errstate(invalid="ignore", divide="ignore"):
         sinc = np.where(x > 0.0, np.sin(x) / x, 1.0)
@@ -174,7 +172,7 @@ def peak_tension_error(amplitude):
     load of its own peak speed. Error: (A^2 - 4 sin^2(A/2)) / (1 + 4 sin^2(A/2)),
     with A - 2 sin(A/2) = 2 (x - sin x) formed without cancellation.
     """
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     x = 0.5 * a
     s = np.sin(x)
     diff = 2.0 * x * x * _k.x_minus_sin_over_cube(x) * (x * (a + 2.0 * s))
@@ -187,10 +185,9 @@ def phase_error(amplitude, cycles):
     In N periods of the real swing (time N T) the linear model completes N T / T0
     cycles, so it leads by 2 pi N (T/T0 - 1) radians, i.e. by N (T - T0) seconds.
     """
-    a, s1 = _amplitudes(amplitude)
+    a, s1 = amplitudes(amplitude)
     n, s2 = real_array(cycles, "cycles", "a finite number of cycles >= 0", low=0.0)
-    m, p = _k.amplitude_parameters(a)
-    return finalize(2.0 * np.pi * n * _k.period_excess(m, p), s1 and s2)
+    return finalize(2.0 * np.pi * n * _excess(a), s1 and s2)
 
 
 def clock_rate_error(amplitude):
@@ -199,9 +196,8 @@ def clock_rate_error(amplitude):
     Each beat takes T instead of T0, so in a day the clock shows 86400 T0 / T seconds:
     the rate is -86400 (T - T0) / T s/day (negative: the clock loses).
     """
-    a, scalar = _amplitudes(amplitude)
-    m, p = _k.amplitude_parameters(a)
-    e = _k.period_excess(m, p)
+    a, scalar = amplitudes(amplitude)
+    e = _excess(a)
     return finalize(-SECONDS_PER_DAY * e / (1.0 + e), scalar)
 
 
@@ -211,7 +207,8 @@ def max_amplitude_for_period_error(tolerance, relative_to="exact"):
     Parameters
     ----------
     tolerance : float or array_like
-        Allowed relative error, in (0, 1) (0.001 for 0.1 %).
+        Allowed relative error (0.001 for 0.1 %), in (0, 0.9577] for ``exact`` and
+        (0, 22.67] for ``small_angle``: larger errors need an amplitude of 180 deg.
     relative_to : {"exact", "small_angle"}
         ``exact``: |T0 - T| / T <= tolerance (this module's convention);
         ``small_angle``: (T - T0) / T0 <= tolerance.
@@ -221,15 +218,19 @@ def max_amplitude_for_period_error(tolerance, relative_to="exact"):
     >>> round(math.degrees(max_amplitude_for_period_error(0.01)), 9)
     22.927726631
     """
-    tol, scalar = real_array(tolerance, "tolerance", "a finite relative error in (0, 1)",
-                             low=0.0, high=1.0, low_open=True, high_open=True)
+    top = max_period_excess()
     if relative_to == "exact":
-        excess = tol / (1.0 - tol)
+        limit = top / (1.0 + top)   # (T - T0)/T = e / (1 + e)
     elif relative_to == "small_angle":
-        excess = tol
+        limit = top
     else:
         raise InvalidInput("relative_to", relative_to, "'exact' or 'small_angle'")
-    return finalize(amplitude_for_period_excess(excess), scalar)
+    tol, scalar = real_array(
+        tolerance, "tolerance",
+        f"a finite relative error in (0, {limit:.6g}] (a larger one is never reached "
+        "below 180 deg)", low=0.0, high=limit, low_open=True)
+    excess = tol / (1.0 - tol) if relative_to == "exact" else tol
+    return finalize(amplitude_for_period_excess(np.minimum(excess, top)), scalar)
 
 
 @dataclass(frozen=True)
@@ -281,7 +282,7 @@ class SmallAngleCheck:
         return d
 
 
-def small_angle_check(amplitude, tolerance=0.001, cycles=86400.0):
+def small_angle_check(amplitude, tolerance=0.001, cycles=100.0):
     """Every small-angle error at one amplitude, and whether the period error is acceptable.
 
     Parameters
@@ -291,9 +292,9 @@ def small_angle_check(amplitude, tolerance=0.001, cycles=86400.0):
     tolerance : float
         Accepted relative period error, in (0, 1). Default 0.1 %.
     cycles : float
-        Number of periods for the accumulated phase error (default 86400).
+        Number of periods for the accumulated phase error (default 100).
     """
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     if not scalar:
         raise InvalidInput("amplitude", amplitude, "a single amplitude [rad]", "not a scalar")
     a = float(a)
@@ -305,10 +306,9 @@ def small_angle_check(amplitude, tolerance=0.001, cycles=86400.0):
     ok = abs(err) <= tol
     msg = (f"the small-angle period is within {tol:.3g} of the exact one"
            if ok else f"the small-angle period is off by {abs(err):.3g}, more than {tol:.3g}")
-    m, p = _k.amplitude_parameters(a)
     return SmallAngleCheck(
         amplitude_rad=a, tolerance_rel=tol,
-        period_ratio=1.0 + float(_k.period_excess(m, p)),
+        period_ratio=1.0 + float(_excess(a)),
         period_error_rel=err,
         series_error_rel={n: series_period_error(a, n) for n in SERIES_TERMS},
         bounds=period_ratio_bounds(a),

@@ -8,11 +8,11 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
-from ._validate import positive_scalar, real_scalar
+from ._validate import amplitude_scalar, finite_result, positive_scalar, real_scalar
 from .constants import SECONDS_PER_HOUR, STANDARD_GRAVITY
 from .errors import InvalidInput
 from .kernels import swing as _k
-from .swing import _amplitudes
+from .swing import natural_angular_frequency
 
 __all__ = ["SUSPENSIONS", "SimplePendulum", "simple_pendulum", "slack_angle"]
 
@@ -108,14 +108,10 @@ def simple_pendulum(length, amplitude, mass=1.0, gravity=STANDARD_GRAVITY, suspe
     L = positive_scalar(length, "length", "m")
     mass_kg = positive_scalar(mass, "mass", "kg")
     g = positive_scalar(gravity, "gravity", "m/s^2")
-    a_arr, scalar = _amplitudes(amplitude)
-    if not scalar:
-        raise InvalidInput("amplitude", amplitude, "a single amplitude [rad] in [0, pi)",
-                           "not a scalar")
-    a = float(a_arr)
+    a = amplitude_scalar(amplitude)
     if suspension not in SUSPENSIONS:
         raise InvalidInput("suspension", suspension, " or ".join(SUSPENSIONS))
-    omega0 = math.sqrt(g / L)
+    omega0 = natural_angular_frequency(L, g)
     t0 = 2.0 * math.pi / omega0
     m_par, p_par = (float(v) for v in _k.amplitude_parameters(a))
     ratio = 1.0 + float(_k.period_excess(m_par, p_par))
@@ -139,8 +135,7 @@ def simple_pendulum(length, amplitude, mass=1.0, gravity=STANDARD_GRAVITY, suspe
         warnings.append(
             f"the amplitude is within {p_par:.2g} of the separatrix energy: a small push "
             "sends the bob over the top")
-    return SimplePendulum(
-        length_m=L, mass_kg=mass_kg, gravity_m_s2=g, amplitude_rad=a, suspension=suspension,
+    values = dict(
         small_angle_period_s=t0, period_s=t, period_ratio=ratio, frequency_hz=1.0 / t,
         beats_per_hour=2.0 * SECONDS_PER_HOUR / t,
         peak_angular_speed_rad_s=peak_omega, peak_speed_m_s=peak_omega * L,
@@ -149,7 +144,11 @@ def simple_pendulum(length, amplitude, mass=1.0, gravity=STANDARD_GRAVITY, suspe
                        else weight * math.cos(a)),
         energy_J=2.0 * weight * L * m_par,
         separatrix_margin=p_par,
-        over_top_speed_rigid_m_s=2.0 * math.sqrt(g * L),
-        over_top_speed_flexible_m_s=math.sqrt(5.0 * g * L),
-        zero_tension_angle_rad=zero_angle, warnings=tuple(warnings))
+        over_top_speed_rigid_m_s=2.0 * omega0 * L,
+        over_top_speed_flexible_m_s=math.sqrt(5.0) * omega0 * L)
+    finite_result(values.values(), "length/mass/gravity",
+                  "magnitudes whose periods, speeds, loads and energies are finite numbers")
+    return SimplePendulum(length_m=L, mass_kg=mass_kg, gravity_m_s2=g, amplitude_rad=a,
+                          suspension=suspension, zero_tension_angle_rad=zero_angle,
+                          warnings=tuple(warnings), **values)
 

@@ -13,7 +13,9 @@ from dataclasses import dataclass, field
 import numpy as np
 from scipy import special
 
-from ._validate import finalize, positive_scalar, real_array, real_scalar
+from ._validate import (AMPLITUDE_ALLOWED, amplitude_scalar, amplitudes, finalize,
+                        finite_result, positive_array, positive_scalar, real_array,
+                        real_scalar)
 from .constants import STANDARD_GRAVITY
 from .errors import MISSING, InvalidInput, SolverFailure
 from .kernels import swing as _k
@@ -32,14 +34,17 @@ __all__ = [
     "rotation_period",
     "amplitude_for_period_ratio",
     "amplitude_for_period_excess",
+    "max_period_excess",
     "time_from_bottom",
     "harmonic_ratio",
     "classify",
     "swing_history",
 ]
 
-_AMPLITUDE_ALLOWED = "a finite libration amplitude in [0, pi) rad, i.e. [0, 180) deg"
 _TWO_OVER_PI = 2.0 / math.pi
+
+
+_LG_ALLOWED = "a length and a gravity whose ratio sqrt(g/L) is a finite positive number"
 
 
 class Regime:
@@ -52,15 +57,6 @@ class Regime:
     ROTATION = "rotation"
 
 
-def _amplitudes(amplitude, field_name="amplitude"):
-    return real_array(amplitude, field_name, _AMPLITUDE_ALLOWED,
-                      low=0.0, high=math.pi, high_open=True)
-
-
-def _positive(value, field_name, unit):
-    return real_array(value, field_name, f"a finite number > 0 [{unit}]", low=0.0, low_open=True)
-
-
 def natural_angular_frequency(length, gravity=STANDARD_GRAVITY):
     """omega0 = sqrt(g / L) [rad/s] of the linearised pendulum.
 
@@ -71,9 +67,15 @@ def natural_angular_frequency(length, gravity=STANDARD_GRAVITY):
     gravity : float or ndarray
         Acceleration of gravity [m/s^2], > 0.
     """
-    L, s1 = _positive(length, "length", "m")
-    g, s2 = _positive(gravity, "gravity", "m/s^2")
-    return finalize(np.sqrt(g / L), s1 and s2)
+    L, s1 = positive_array(length, "length", "m")
+    g, s2 = positive_array(gravity, "gravity", "m/s^2")
+    with np.errstate(over="ignore", divide="ignore", under="ignore"):
+        omega0 = np.sqrt(g / L)
+        period_scale = 1.0 / omega0
+    finite_result([omega0, period_scale], "length/gravity", _LG_ALLOWED)
+    if np.any(omega0 == 0.0):
+        raise InvalidInput("length/gravity", MISSING, _LG_ALLOWED, "sqrt(g/L) underflows to 0")
+    return finalize(omega0, s1 and s2)
 
 
 def small_angle_period(length, gravity=STANDARD_GRAVITY):
@@ -84,9 +86,8 @@ def small_angle_period(length, gravity=STANDARD_GRAVITY):
     >>> round(small_angle_period(0.993621385566), 9)   # seconds pendulum at g_n
     2.0
     """
-    L, s1 = _positive(length, "length", "m")
-    g, s2 = _positive(gravity, "gravity", "m/s^2")
-    return finalize(2.0 * np.pi * np.sqrt(L / g), s1 and s2)
+    omega0 = natural_angular_frequency(length, gravity)
+    return 2.0 * np.pi / omega0
 
 
 def period_ratio(amplitude):
@@ -115,7 +116,7 @@ def period_ratio(amplitude):
     >>> round(period_ratio(math.pi / 2), 12)
     1.180340599016
     """
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     if scalar:
         c = math.cos(0.5 * float(a))
         return _TWO_OVER_PI * float(special.ellipkm1(c * c))
@@ -145,7 +146,7 @@ def period_excess(amplitude):
     sum_{n>=1} [(2n)!/(4^n n!^2)]^2 m^n (A&S 17.3.11), which avoids the cancellation of
     ``period_ratio(a) - 1`` (that loses all digits below about 1e-8 rad).
     """
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     m, p = _k.amplitude_parameters(a)
     return finalize(_k.period_excess(m, p), scalar)
 
@@ -205,19 +206,19 @@ def rotation_period(length, bottom_speed, gravity=STANDARD_GRAVITY):
     gravity : float
         [m/s^2].
     """
-    L, s1 = _positive(length, "length", "m")
-    g, s2 = _positive(gravity, "gravity", "m/s^2")
-    v, s3 = real_array(bottom_speed, "bottom_speed", "a finite speed [m/s]")
-    w = np.abs(v) / (2.0 * np.sqrt(g * L))
+    L = positive_scalar(length, "length", "m")
+    omega0 = natural_angular_frequency(L, gravity)
+    v, scalar = real_array(bottom_speed, "bottom_speed", "a finite speed [m/s]")
+    w = np.abs(v) / (2.0 * omega0 * L)
     if np.any(w <= 1.0):
-        limit = float(np.min(2.0 * np.sqrt(g * L)))
         raise InvalidInput("bottom_speed", float(np.min(np.abs(v))),
-                           f"a speed above the separatrix speed 2 sqrt(g L) = {limit:.6g} m/s",
-                           "too slow to go over the top")
-    h = w * w
-    q = (1.0 - w) * (1.0 + w)
-    t0 = 2.0 * np.pi * np.sqrt(L / g)
-    return finalize(t0 * _k.rotation_ratio(h, q), s1 and s2 and s3)
+                           f"a speed above the separatrix speed 2 sqrt(g L) = "
+                           f"{2.0 * omega0 * L:.6g} m/s", "too slow to go over the top")
+    with np.errstate(over="ignore"):
+        h = w * w
+        q = (1.0 - w) * (1.0 + w)
+    finite_result([h, q], "bottom_speed", "a finite speed whose square is a finite number")
+    return finalize(2.0 * np.pi / omega0 * _k.rotation_ratio(h, q), scalar)
 
 
 def amplitude_for_period_excess(excess):
@@ -227,7 +228,10 @@ def amplitude_for_period_excess(excess):
     linear at both ends (m ~ 4 e^x / ... for small amplitudes, T/T0 ~ (x + ln 16)/pi near
     the separatrix); the amplitude is 2 atan(exp(x/2)).
     """
-    e, scalar = real_array(excess, "period_excess", "a finite excess T/T0 - 1 >= 0", low=0.0)
+    top = max_period_excess()
+    e, scalar = real_array(excess, "period_excess",
+                           f"a finite excess T/T0 - 1 in [0, {top:.6g}] (a larger one needs an "
+                           "amplitude that rounds to 180 deg)", low=0.0, high=top)
     e_flat = np.atleast_1d(e).astype(float).ravel()
     out = np.zeros_like(e_flat)
     live = e_flat > 0.0
@@ -241,15 +245,14 @@ def amplitude_for_period_excess(excess):
 _X_LOW, _X_HIGH = -745.0, 2.0 * math.log(math.tan(0.5 * math.nextafter(math.pi, 0.0)))
 
 
+def max_period_excess() -> float:
+    """T/T0 - 1 at the largest float amplitude below pi (22.67): no larger one exists."""
+    return float(_k.excess_for_logit(np.array([_X_HIGH]))[0][0])
+
+
 def _solve_logit(e):
     lo = np.full_like(e, _X_LOW)
     hi = np.full_like(e, _X_HIGH)
-    top, _, _, _ = _k.excess_for_logit(np.array([_X_HIGH]))
-    if np.any(e > top[0]):
-        bad = float(e[e > top[0]][0])
-        raise InvalidInput("period ratio", 1.0 + bad,
-                           f"a ratio in [1, {1.0 + float(top[0]):.6g}] (larger ratios need an "
-                           "amplitude that rounds to 180 deg)", "too large")
     # Starting guesses from the two asymptotes: e ~ m/4 and 1 + e ~ (x + ln 16)/pi.
     x = np.where(e < 0.125, np.log(4.0 * e) - np.log1p(-4.0 * np.minimum(e, 0.2)),
                  np.pi * (1.0 + e) - math.log(16.0))
@@ -287,7 +290,10 @@ def amplitude_for_period_ratio(ratio):
     >>> round(math.degrees(amplitude_for_period_ratio(1.01)), 9)   # REFERENCES: 22.8138492619572
     22.813849262
     """
-    r, scalar = real_array(ratio, "period ratio", "a finite ratio T/T0 >= 1", low=1.0)
+    top = 1.0 + max_period_excess()
+    r, scalar = real_array(ratio, "period ratio",
+                           f"a finite ratio T/T0 in [1, {top:.6g}] (a larger one needs an "
+                           "amplitude that rounds to 180 deg)", low=1.0, high=top)
     return amplitude_for_period_excess(r - 1.0) if not scalar else \
         float(amplitude_for_period_excess(float(r) - 1.0))
 
@@ -319,16 +325,14 @@ def time_from_bottom(angle, length, *, amplitude=None, bottom_speed=None,
         raise InvalidInput("amplitude/bottom_speed", MISSING,
                            "exactly one of amplitude or bottom_speed", "give one of them")
     L = positive_scalar(length, "length", "m")
-    g = positive_scalar(gravity, "gravity", "m/s^2")
+    omega0 = natural_angular_frequency(L, gravity)
     th, scalar = real_array(angle, "angle", "a finite angle in [-pi, pi] rad",
                             low=-math.pi, high=math.pi)
-    omega0 = math.sqrt(g / L)
     half = 0.5 * np.abs(th)
     s = np.sin(half)
     c = np.cos(half)
     if amplitude is not None:
-        a = real_scalar(amplitude, "amplitude", _AMPLITUDE_ALLOWED, low=0.0, high=math.pi,
-                        high_open=True)
+        a = amplitude_scalar(amplitude)
         if np.any(np.abs(th) > a):
             raise InvalidInput("angle", float(np.max(np.abs(th))),
                                f"|angle| <= amplitude = {a:.17g} rad", "never reached")
@@ -336,8 +340,10 @@ def time_from_bottom(angle, length, *, amplitude=None, bottom_speed=None,
         gap = np.sin(0.5 * (a - np.abs(th))) * np.sin(0.5 * (a + np.abs(th)))
     else:
         v = real_scalar(bottom_speed, "bottom_speed", "a finite speed [m/s]")
-        w = abs(v) / (2.0 * math.sqrt(g * L))
-        h = w * w
+        w = abs(v) / (2.0 * omega0 * L)
+        with np.errstate(over="ignore"):
+            h = w * w
+        finite_result([h], "bottom_speed", "a finite speed whose square is a finite number")
         gap = (w - s) * (w + s)
         if np.any(gap < 0.0):
             raise InvalidInput("angle", float(np.max(np.abs(th))),
@@ -364,7 +370,7 @@ def harmonic_ratio(amplitude, order=3):
     """
     if not (isinstance(order, (int, np.integer)) and order >= 1 and order % 2 == 1):
         raise InvalidInput("order", order, "an odd integer >= 1 (the libration angle has only odd harmonics)")
-    a, scalar = _amplitudes(amplitude)
+    a, scalar = amplitudes(amplitude)
     m, p = _k.amplitude_parameters(a)
     return finalize(_k.harmonic_ratio(m, p, int(order)), scalar)
 
@@ -389,8 +395,9 @@ class SwingState:
     top_angular_speed_rad_s : float or None
         |omega| at the top in rotation [rad/s], None otherwise.
     period_s : float
-        Libration period, or the time of one revolution; inf on the separatrix (inside
-        the tolerance band); the small-angle period exactly at rest.
+        Libration period, or the time of one revolution, of the exact state (also
+        inside the tolerance band, where it is huge and as sensitive as the state);
+        inf only exactly on the separatrix; the small-angle period exactly at rest.
     direction : int
         +1 or -1 for the sense of a rotation, 0 otherwise.
     """
@@ -450,16 +457,18 @@ def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, toleranc
     g = positive_scalar(gravity, "gravity", "m/s^2")
     tol = real_scalar(tolerance, "tolerance", "a finite tolerance in [0, 0.5)", low=0.0,
                       high=0.5, high_open=True)
-    omega0 = math.sqrt(g / L)
+    omega0 = natural_angular_frequency(L, g)
     t0 = 2.0 * math.pi / omega0
     w = om / (2.0 * omega0)
     s, c, h, q = (float(v) for v in _k.state_parameters(th, w))
+    finite_result([h, q], "angular_velocity",
+                  "an angular velocity whose kinetic energy is a finite number")
     bottom = 2.0 * omega0 * math.sqrt(h)
     top = None
     direction = 0
     amplitude = None
-    # Energy ratio and margin are always the exact ones of the state; inside the
-    # separatrix band the motion is reported as the separatrix (unbounded period).
+    # The regime comes from the tolerance; the numbers are always the exact ones of the
+    # state, also inside the tolerance band (they agree with swing_history).
     if q > 0.0:
         amplitude = 2.0 * math.atan2(math.sqrt(h), math.sqrt(q))
         per = t0 * float(_k.period_ratio(q))
@@ -476,9 +485,10 @@ def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, toleranc
         message = f"at rest at the bottom (energy ratio {h:.3g} <= {tol:.3g})"
     elif abs(q) <= tol:
         regime = Regime.BALANCED if w * w <= tol else Regime.SEPARATRIX
-        amplitude, per, top, direction = math.pi, math.inf, None, 0
         where = "balanced at the top" if regime == Regime.BALANCED else "on the separatrix"
-        message = f"{where}: |1 - E/E_sep| = {abs(q):.3g} <= {tol:.3g}"
+        message = (f"{where}: |1 - E/E_sep| = {abs(q):.3g} <= {tol:.3g}; the exact period "
+                   f"of this state ({per:.6g} s) is as sensitive to it as the state is "
+                   "to any disturbance")
     elif q > 0.0:
         regime = Regime.LIBRATION
         message = f"libration, amplitude {math.degrees(amplitude):.6g} deg"
@@ -565,8 +575,10 @@ def swing_history(angle, angular_velocity, times, length, gravity=STANDARD_GRAVI
     state = classify(angle, angular_velocity, length, gravity, tolerance=0.0)
     t, _ = real_array(times, "times", "finite times [s]")
     t = np.atleast_1d(t).astype(float)
-    omega0 = math.sqrt(state.gravity_m_s2 / state.length_m)
-    tau = omega0 * t
+    omega0 = natural_angular_frequency(state.length_m, state.gravity_m_s2)
+    with np.errstate(over="ignore"):
+        tau = omega0 * t
+    finite_result([tau], "times", "times whose phase omega0 t is a finite number")
     th0 = state.angle_rad
     w = state.angular_velocity_rad_s / (2.0 * omega0)
     s, c, turns = _reduced_half_angle(th0)

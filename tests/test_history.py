@@ -94,12 +94,21 @@ def test_classify_rotation_both_directions(sign):
 
 def test_classify_balanced_at_top():
     """At the top with no speed (angle = math.pi, 1.2e-16 from the true top): balanced,
-    h = 1 to rounding, margin cos^2(pi/2) ~ 4e-33, infinite period."""
-    st = swingcalc.classify(math.pi, 0.0, 1.0, G)
+    h = 1 to rounding, margin cos^2(pi/2) ~ 4e-33. The numbers stay those of the exact
+    float state, a libration of amplitude math.pi: period T0 (2/pi) K(sin^2(pi_f/2))
+    from mpmath at 50 digits (K from its complement, relative 1e-15: 4 ulp of a result
+    that is 25 T0), the same state that swing_history follows."""
+    L = 1.0
+    st = swingcalc.classify(math.pi, 0.0, L, G)
     assert st.regime == Regime.BALANCED
     assert st.energy_ratio == pytest.approx(1.0, abs=2 * EPS)
     assert abs(st.separatrix_margin) < 1e-30
-    assert st.period_s == math.inf and st.amplitude_rad == pytest.approx(math.pi, abs=1e-15)
+    assert st.amplitude_rad == pytest.approx(math.pi, abs=1e-15)
+    with mpmath.workdps(50):
+        half = mpmath.mpf(math.pi) / 2
+        t0 = 2 * mpmath.pi * mpmath.sqrt(mpmath.mpf(L) / G)
+        expected = t0 * 2 / mpmath.pi * mpmath.ellipk(mpmath.sin(half) ** 2)
+    assert st.period_s == pytest.approx(float(expected), rel=1e-15)
 
 
 def test_classify_separatrix_within_tolerance():
@@ -116,7 +125,8 @@ def test_classify_separatrix_within_tolerance():
         # margin = (1 - w)(1 + w), both factors exact or one rounding: 2 ulp relative.
         assert st.separatrix_margin == pytest.approx(float(1 - h), rel=2 * EPS, abs=0.0) \
             or float(1 - h) == st.separatrix_margin == 0.0
-        if regime == Regime.SEPARATRIX:
+        if d == 0.0:
+            # Exactly on the separatrix (q = 0): the period is unbounded.
             assert st.period_s == math.inf
 
 

@@ -138,7 +138,6 @@ def test_clock_rate_error_against_mpmath_and_circular_error_rule():
         assert swingcalc.clock_rate_error(a) == pytest.approx(float(ref), rel=1e-15)
     a = math.radians(3)
     rule = 86400 * a * a / 16
-    assert rule == pytest.approx(14.8, abs=0.05)
     assert -swingcalc.clock_rate_error(a) == pytest.approx(rule, rel=1e-3)
 
 

@@ -18,6 +18,7 @@ __all__ = ["blockwise", "thread_count"]
 _BLOCK = 1 << 14
 _PARALLEL_MIN = 1 << 16
 _pool = None
+_pool_workers = 0
 _pool_lock = threading.Lock()
 
 
@@ -33,14 +34,15 @@ def thread_count() -> int:
 
 
 def _executor(workers):
-    global _pool
+    global _pool, _pool_workers
     with _pool_lock:
-        if _pool is None or _pool._max_workers != workers:
+        if _pool is None or _pool_workers != workers:
             from concurrent.futures import ThreadPoolExecutor
 
             if _pool is not None:
                 _pool.shutdown(wait=False)
             _pool = ThreadPoolExecutor(max_workers=workers, thread_name_prefix="swingcalc")
+            _pool_workers = workers
         return _pool
 
 

@@ -18,6 +18,7 @@ Plain floats and numpy arrays, radians, no validation (the public API validates)
 
 from __future__ import annotations
 
+import math
 from fractions import Fraction
 from functools import lru_cache
 
@@ -27,6 +28,7 @@ from scipy import special
 from .elliptic import carlson_rf, ellipk, jacobi_sncndn, nome
 
 __all__ = [
+    "fill_where",
     "amplitude_parameters",
     "state_parameters",
     "period_ratio",
@@ -48,6 +50,21 @@ _SERIES_LIMIT = 0.5
 _SERIES_TERMS = 60
 
 
+def fill_where(out, mask, fn, *args):
+    """``out`` with ``fn`` of the masked ``args`` written where ``mask`` holds.
+
+    The kernels evaluate a cheap general formula everywhere, then overwrite the
+    entries where it cancels with a series; this does the masking for 0-d and n-d
+    arrays alike.
+    """
+    if not np.any(mask):
+        return out
+    if np.ndim(out) == 0:
+        return fn(*args)
+    out[mask] = fn(*(np.broadcast_to(a, out.shape)[mask] for a in args))
+    return out
+
+
 def amplitude_parameters(amplitude):
     """(m, p) = (sin^2(A/2), cos^2(A/2)) for a libration amplitude A, both accurate."""
     half = 0.5 * np.asarray(amplitude, dtype=float)
@@ -62,9 +79,10 @@ def state_parameters(theta, w):
     s = np.sin(half)
     c = np.cos(half)
     w = np.asarray(w, dtype=float)
-    h = w * w + s * s
     ac, aw = np.abs(c), np.abs(w)
-    q = (ac - aw) * (ac + aw)
+    with np.errstate(over="ignore"):  # callers check h and q for overflow
+        h = w * w + s * s
+        q = (ac - aw) * (ac + aw)
     return s, c, h, q
 
 
@@ -84,23 +102,26 @@ def _k_series_coefficients(terms: int = _SERIES_TERMS) -> np.ndarray:
     return np.array(coef)
 
 
+def _excess_series(m):
+    acc = np.zeros_like(m)
+    for c in _k_series_coefficients()[:0:-1]:
+        acc = (acc + c) * m
+    return acc
+
+
+def _slope_series(m, p):
+    coef = _k_series_coefficients()
+    acc = np.zeros_like(m)
+    for n in range(len(coef) - 1, 0, -1):
+        acc = acc * m + n * coef[n]
+    return acc * m * p
+
+
 def period_excess(m, p):
     """T/T0 - 1 to about 1e-15 relative for every amplitude (also as m -> 0)."""
     m = np.asarray(m, dtype=float)
     p = np.asarray(p, dtype=float)
-    out = period_ratio(p) - 1.0
-    small = m < _SERIES_LIMIT
-    if np.any(small):
-        ms = m[small] if out.ndim else m
-        coef = _k_series_coefficients()
-        acc = np.zeros_like(ms)
-        for c in coef[:0:-1]:
-            acc = (acc + c) * ms
-        if out.ndim:
-            out[small] = acc
-        else:
-            out = acc
-    return out
+    return fill_where(period_ratio(p) - 1.0, m < _SERIES_LIMIT, _excess_series, m)
 
 
 def period_excess_slope(m, p):
@@ -108,20 +129,7 @@ def period_excess_slope(m, p):
     m = np.asarray(m, dtype=float)
     p = np.asarray(p, dtype=float)
     out = (special.ellipe(m) - p * ellipk(p)) / np.pi
-    small = m < _SERIES_LIMIT
-    if np.any(small):
-        ms = m[small] if out.ndim else m
-        ps = p[small] if out.ndim else p
-        coef = _k_series_coefficients()
-        acc = np.zeros_like(ms)
-        for n in range(len(coef) - 1, 0, -1):
-            acc = acc * ms + n * coef[n]
-        val = acc * ms * ps
-        if out.ndim:
-            out[small] = val
-        else:
-            out = val
-    return out
+    return fill_where(out, m < _SERIES_LIMIT, _slope_series, m, p)
 
 
 def excess_for_logit(x):
@@ -150,32 +158,21 @@ def time_from_bottom(s, gap, h, c):
     return s * carlson_rf(h * c * c, gap, h)
 
 
+def _x_minus_sin_series(x):
+    # 1/3! - x^2/5! + x^4/7! - ... - x^22/25!, by Horner from the smallest term.
+    x2 = x * x
+    acc = np.zeros_like(x)
+    for j in range(12, 0, -1):
+        acc = acc * x2 + (-1) ** (j + 1) / math.factorial(2 * j + 1)
+    return acc
+
+
 def x_minus_sin_over_cube(x):
     """(x - sin x) / x^3 without cancellation or underflow (Taylor series for |x| < 1)."""
     x = np.asarray(x, dtype=float)
     with np.errstate(invalid="ignore", divide="ignore"):
         out = (x - np.sin(x)) / x**3
-    small = np.abs(x) < 1.0
-    if np.any(small):
-        xs = x[small] if out.ndim else x
-        x2 = xs * xs
-        # 1/3! - x^2/5! + x^4/7! - ... - x^22/25!, by Horner from the smallest term.
-        acc = np.zeros_like(xs)
-        for j in range(12, 0, -1):
-            acc = acc * x2 + (-1) ** (j + 1) / _factorial(2 * j + 1)
-        if out.ndim:
-            out[small] = acc
-        else:
-            out = acc
-    return out
-
-
-@lru_cache(maxsize=None)
-def _factorial(n: int) -> float:
-    result = 1
-    for i in range(2, n + 1):
-        result *= i
-    return float(result)
+    return fill_where(out, np.abs(x) < 1.0, _x_minus_sin_series, x)
 
 
 @lru_cache(maxsize=None)
@@ -188,7 +185,7 @@ def theta_series_coefficients(terms: int) -> tuple[Fraction, ...]:
     """
     # m as a series in y = A^2: m = sum_{j>=1} (-1)^(j+1) y^j / (2 (2j)!)
     m_series = [Fraction(0)] + [
-        Fraction((-1) ** (j + 1), 2 * _int_factorial(2 * j)) for j in range(1, terms)
+        Fraction((-1) ** (j + 1), 2 * math.factorial(2 * j)) for j in range(1, terms)
     ]
     result = [Fraction(0)] * terms
     power = [Fraction(1)] + [Fraction(0)] * (terms - 1)  # m^0
@@ -200,13 +197,6 @@ def theta_series_coefficients(terms: int) -> tuple[Fraction, ...]:
         for j in range(terms):
             result[j] += c_n * power[j]
     return tuple(result)
-
-
-def _int_factorial(n: int) -> int:
-    result = 1
-    for i in range(2, n + 1):
-        result *= i
-    return result
 
 
 def _mul_series(a, b, terms):
