@@ -8,7 +8,6 @@ definition, (T - T0) / T0. Method notes: ``docs/methods/small-angle.md``.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass, field
 
 import numpy as np

@@ -13,7 +13,7 @@ from dataclasses import dataclass, field
 import numpy as np
 from scipy import special
 
-from ._validate import (AMPLITUDE_ALLOWED, amplitude_scalar, amplitudes, finalize,
+from ._validate import (amplitude_scalar, amplitudes, finalize,
                         finite_result, positive_array, positive_scalar, real_array,
                         real_scalar)
 from .constants import STANDARD_GRAVITY
@@ -369,7 +369,8 @@ def harmonic_ratio(amplitude, order=3):
     small amplitudes q ~ m/16, so a_3/a_1 ~ theta0^2 / 192.
     """
     if not (isinstance(order, (int, np.integer)) and order >= 1 and order % 2 == 1):
-        raise InvalidInput("order", order, "an odd integer >= 1 (the libration angle has only odd harmonics)")
+        raise InvalidInput("order", order,
+                           "an odd integer >= 1 (the libration angle has only odd harmonics)")
     a, scalar = amplitudes(amplitude)
     m, p = _k.amplitude_parameters(a)
     return finalize(_k.harmonic_ratio(m, p, int(order)), scalar)

@@ -20,7 +20,7 @@ from hypothesis import strategies as st
 import swingcalc
 from swingcalc.kernels.swing import theta_series_coefficients
 
-from helpers import EPS, integrate, mp_period_ratio, period_cases, references, rel
+from helpers import EPS, mp_period_ratio, period_cases, references, rel
 
 # Largest float amplitude the library accepts (math.pi itself is rejected as >= pi).
 A_MAX = math.nextafter(math.pi, 0.0)

@@ -44,8 +44,9 @@ __all__ = [
 ]
 
 _TWO_OVER_PI = 2.0 / np.pi
-# Below this parameter (amplitude 90 deg) the excess T/T0 - 1 is summed from its series in m, which keeps
-# full relative accuracy as m -> 0, where (2/pi) K(m) - 1 cancels.
+# Below this parameter (amplitude 90 deg) the excess T/T0 - 1 is summed from its series
+# in m, which keeps full relative accuracy as m -> 0, where (2/pi) K(m) - 1 cancels; 60
+# terms leave a remainder below 1e-19 of the sum at m = 0.5.
 _SERIES_LIMIT = 0.5
 _SERIES_TERMS = 60
 
