@@ -26,48 +26,48 @@ what is allowed; unknown fields are errors, with a "did you mean" hint. Later fo
 
 from __future__ import annotations
 
-import difflib
 import math
 import re
+import unicodedata
 from dataclasses import asdict, dataclass, field
 from pathlib import Path
 
 from .constants import STANDARD_GRAVITY
-from .errors import InvalidInput
-from .quantity import parse_quantity, parse_values
+from .errors import MISSING, InvalidInput
+from .pendulum import SUSPENSIONS
+from .quantity import parse_quantity, parse_values, suggest
 
-__all__ = ["CONTEXTS", "SUSPENSIONS", "SimpleBody", "Design", "load_design", "parse_design",
-           "absent", "suggest"]
+__all__ = ["CONTEXTS", "GRAVITY_ALLOWED", "SimpleBody", "Design", "load_design", "parse_design",
+           "parse_gravity"]
 
 #: What the swinging part is for; it selects the safety cautions shown with loads.
 CONTEXTS = ("clock", "ride", "gate", "impact", "damper", "load", "general")
-#: Kinds of suspension (the same words as :func:`swingcalc.simple_pendulum`).
-SUSPENSIONS = ("rigid", "flexible")
 _MAX_FILE_BYTES = 1_000_000
-_AMPLITUDE_ALLOWED = "amplitudes in [0, 180) deg, e.g. '5 deg', [\"30 deg\", \"60 deg\"] or '0:90:10 deg'"
+_AMPLITUDE_ALLOWED = ("amplitudes in [0, 180) deg, e.g. '5 deg', [\"30 deg\", \"60 deg\"] "
+                      "or '0:90:10 deg'")
 _SCHEMA = {
     "": ("name", "revision", "context", "pendulum", "swing", "environment"),
     "pendulum": ("length", "bob_mass", "suspension"),
     "swing": ("amplitude",),
     "environment": ("gravity",),
 }
+# Control characters (ESC, BEL, newlines, ...), and line/paragraph separators, would let a
+# name move the cursor or recolour a terminal, or break the one-line reports and CSV comments.
+_CONTROL_CATEGORIES = ("Cc", "Zl", "Zp")
 _TOML_HINT = 'a TOML design file: key = "value" lines, quantities in quotes (length = "994 mm")'
 
-
-def absent(field_name: str, allowed: str, problem: str) -> InvalidInput:
-    """An :class:`InvalidInput` about something missing: no "(got None)" in its message."""
-    return _without_value(InvalidInput(field_name, None, allowed, problem))
-
-
-def _without_value(err: InvalidInput) -> InvalidInput:
-    err.args = (f"{err.field}: {err.problem}; allowed: {err.allowed}",)
-    return err
+#: What ``gravity`` may be, in a design file or on the command line.
+GRAVITY_ALLOWED = "'standard' (9.80665 m/s^2) or an acceleration > 0, e.g. '9.8123 m/s^2'"
+_MAX_TEXT_CHARS = 200
 
 
-def suggest(word: str, choices) -> str:
-    """``"; did you mean 'x'?"`` for the closest of ``choices``, or ``""``."""
-    close = difflib.get_close_matches(str(word), list(choices), n=1, cutoff=0.5)
-    return f"; did you mean '{close[0]}'?" if close else ""
+def parse_gravity(value, field_name: str) -> tuple[float, str]:
+    """(gravity [m/s^2], how it was given): ``None`` or ``"standard"`` is standard gravity."""
+    if value is None or (isinstance(value, str) and value.strip().lower() == "standard"):
+        return STANDARD_GRAVITY, "standard"
+    g = parse_quantity(value, "acceleration", field_name, allowed=GRAVITY_ALLOWED,
+                       minimum=0.0, include_min=False)
+    return g, str(value)
 
 
 @dataclass(frozen=True)
@@ -140,9 +140,9 @@ class _Reader:
         value = self.data.get(name)
         if value is None:
             if required:
-                raise _without_value(InvalidInput(
-                    f"{self.source}, [{name}]", None,
-                    f"a [{name}] section with " + ", ".join(_SCHEMA[name]), "missing section"))
+                raise InvalidInput(f"{self.source}, [{name}]", MISSING,
+                                   f"a [{name}] section with " + ", ".join(_SCHEMA[name]),
+                                   "missing section")
             return {}
         if not isinstance(value, dict):
             raise InvalidInput(self.where("", name), value, f"a [{name}] section",
@@ -152,9 +152,8 @@ class _Reader:
 
     def required(self, section: str, table: dict, key: str, allowed: str):
         if key not in table:
-            raise _without_value(InvalidInput(
-                self.where(section, "") if section else self.source, None,
-                f"{section}.{key}: {allowed}", f"missing required field '{key}'"))
+            raise InvalidInput(self.where(section, "") if section else self.source, MISSING,
+                               f"{section}.{key}: {allowed}", f"missing required field '{key}'")
         return table[key]
 
     def quantity(self, section, table, key, kind, allowed, **bounds) -> float:
@@ -178,12 +177,16 @@ class _Reader:
 
     def text(self, key: str, default: str) -> str:
         value = self.data.get(key, default)
-        if isinstance(value, bool) or not isinstance(value, (str, int)):
-            raise InvalidInput(self.where("", key), value, "a short text in quotes",
-                               "wrong type")
-        value = str(value)
-        if len(value) > 200:
-            raise InvalidInput(self.where("", key), value, "at most 200 characters", "too long")
+        allowed = f"a text in quotes of at most {_MAX_TEXT_CHARS} characters, on one line"
+        if not isinstance(value, str):
+            raise InvalidInput(self.where("", key), value, allowed,
+                               "wrong type: expected a text in quotes")
+        if len(value) > _MAX_TEXT_CHARS:
+            raise InvalidInput(self.where("", key), value, allowed, "too long")
+        bad = [c for c in value if unicodedata.category(c) in _CONTROL_CATEGORIES]
+        if bad:
+            raise InvalidInput(self.where("", key), value, allowed,
+                               f"contains the control character U+{ord(bad[0]):04X}")
         return value
 
 
@@ -276,12 +279,12 @@ def _amplitudes(r: _Reader, swing: dict) -> list[float]:
 
 def _gravity(r: _Reader, env: dict) -> tuple[float, str]:
     value = env.get("gravity", "standard")
-    if isinstance(value, str) and value.strip().lower() == "standard":
-        return STANDARD_GRAVITY, "standard"
-    allowed = "\"standard\" or an acceleration > 0, e.g. \"9.8123 m/s^2\""
-    g = r.quantity("environment", env, "gravity", "acceleration", allowed,
-                   minimum=0.0, include_min=False)
-    return g, str(value)
+    where = r.where("environment", "gravity")
+    if isinstance(value, bool) or not isinstance(value, (str, int, float)):
+        raise InvalidInput(where, value, GRAVITY_ALLOWED,
+                           "wrong type: expected \"standard\" or a quantity such as "
+                           "\"9.81 m/s^2\"")
+    return parse_gravity(value, where)
 
 
 def _syntax_error(exc, text: str, source: str) -> InvalidInput:
@@ -290,14 +293,14 @@ def _syntax_error(exc, text: str, source: str) -> InvalidInput:
     problem = re.sub(r"\s*\(at line \d+, column \d+\)", "", msg) or "invalid TOML"
     problem = problem[0].lower() + problem[1:]
     field_name = source
-    shown = None
+    shown = MISSING
     if m:
         n = int(m.group(1))
         field_name = f"{source}, line {n}"
         lines = text.splitlines()
-        if 1 <= n <= len(lines):
-            shown = lines[n - 1].strip()
-            if re.search(r"=\s*[-+]?[\d.]+(?:[eE][-+]?\d+)?\s+[^\s#]", shown):
+        line = lines[n - 1].strip() if 1 <= n <= len(lines) else ""
+        if line:
+            shown = line
+            if re.search(r"=\s*[-+]?[\d.]+(?:[eE][-+]?\d+)?\s+[^\s#]", line):
                 problem += "; put a quantity with a unit in quotes"
-    err = InvalidInput(field_name, shown, _TOML_HINT, f"TOML syntax error: {problem}")
-    return err if shown else _without_value(err)
+    return InvalidInput(field_name, shown, _TOML_HINT, f"TOML syntax error: {problem}")

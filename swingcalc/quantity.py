@@ -24,9 +24,9 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from .errors import InvalidInput
+from .errors import MISSING, InvalidInput
 
-__all__ = ["KINDS", "parse_quantity", "parse_values", "split_magnitude"]
+__all__ = ["KINDS", "parse_quantity", "parse_values", "split_magnitude", "suggest"]
 
 #: Longest accepted single quantity string, and longest value list.
 MAX_QUANTITY_CHARS = 100
@@ -93,7 +93,7 @@ def _registry():
         try:
             import pint
         except ImportError:  # pragma: no cover - pint is a declared dependency
-            raise InvalidInput("unit", None, "bare numbers (SI; angles in deg)",
+            raise InvalidInput("unit", MISSING, "bare numbers (SI; angles in deg)",
                                "units need the 'pint' package, which is not installed") from None
         _REGISTRY = pint.UnitRegistry()
     return _REGISTRY
@@ -149,15 +149,20 @@ def _check_unit_text(unit: str, field: str, original: str, allowed: str) -> None
                            "numbers may appear in a unit only as exponents ('m/s^2')")
 
 
-def _suggest(token: str, k: Kind, ureg) -> str:
-    pool = list(k.suggestions)
-    exact = [c for c in pool if c.lower() == token.lower()]
+def suggest(word, choices, fallback=()) -> str:
+    """``"; did you mean 'x'?"`` for the closest of ``choices`` (then of ``fallback``), or ``""``.
+
+    A match that differs only in case wins outright; otherwise up to three close matches
+    are offered.
+    """
+    word = str(word)
+    pool = list(choices)
+    exact = [c for c in pool if c.lower() == word.lower()]
     if exact:
         return f"; did you mean '{exact[0]}'?"
-    close = difflib.get_close_matches(token, pool, n=3, cutoff=0.5)
-    if not close:
-        close = difflib.get_close_matches(token, [n for n in dir(ureg) if not n.startswith("_")],
-                                          n=3, cutoff=0.75)
+    close = difflib.get_close_matches(word, pool, n=3, cutoff=0.5)
+    if not close and fallback:
+        close = difflib.get_close_matches(word, list(fallback), n=3, cutoff=0.75)
     if not close:
         return ""
     return "; did you mean " + " or ".join(f"'{c}'" for c in close) + "?"
@@ -177,7 +182,8 @@ def _parse_unit(unit: str, k: Kind, field: str, original: str, allowed: str):
         names = getattr(exc, "unit_names", None) or (unit,)
         name = names[0] if isinstance(names, (tuple, list)) else str(names)
         raise InvalidInput(field, original, allowed,
-                           f"unknown unit '{name}'{_suggest(str(name), k, ureg)}") from None
+                           f"unknown unit '{name}'"
+                           f"{suggest(name, k.suggestions, _unit_names(ureg))}") from None
     except (pint.errors.PintError, ValueError, TypeError, AttributeError, SyntaxError,
             KeyError, ZeroDivisionError, IndexError):
         raise InvalidInput(field, original, allowed, f"cannot read the unit '{unit}'") from None
@@ -185,6 +191,10 @@ def _parse_unit(unit: str, k: Kind, field: str, original: str, allowed: str):
         raise InvalidInput(field, original, allowed,
                            f"'{unit}' is not {k.described} (it is {_describe(probe, root)})")
     return parsed
+
+
+def _unit_names(ureg) -> list[str]:
+    return [n for n in dir(ureg) if not n.startswith("_")]
 
 
 def _dimension_ok(k: Kind, probe, root, ureg) -> bool:

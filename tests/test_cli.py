@@ -156,8 +156,8 @@ def test_csv_parses_and_equals_the_library_values():
 
 def test_csv_of_pendulum_carries_the_cautions():
     out, _ = run_ok("pendulum", SEAT, "--format", "csv")
-    cautions = [r for r in csv.reader(io.StringIO(out)) if r and r[0] == "# caution"]
-    assert cautions and any("ASTM F2291" in r[1] for r in cautions)
+    cautions = [line for line in out.splitlines() if line.startswith("# caution: ")]
+    assert cautions and any("ASTM F2291" in line for line in cautions)
     rows = csv_rows(out)
     r = swingcalc.simple_pendulum(2.2, math.radians(60), mass=80, suspension="flexible")
     assert float(rows[1]["peak_tension_N"]) == r.peak_tension_N
@@ -405,3 +405,208 @@ def test_motion_history_starts_at_the_given_state():
 ])
 def test_motion_bad_input(args, words):
     assert_bad(args, *words)
+
+
+# ---------------------------------------------------------------- review fixes
+
+def _data_and_comments(text):
+    """Split our CSV into comment lines and the data lines, checking each comment line
+    starts with '#' itself (a spreadsheet or pandas comment='#' must see it as one)."""
+    comments, data = [], []
+    for line in text.splitlines():
+        (comments if line.startswith("#") else data).append(line)
+    assert not any(line.startswith('"#') for line in data)
+    return comments, data
+
+
+def test_csv_comment_lines_start_with_a_hash_even_with_commas(tmp_path):
+    p = tmp_path / "seat.toml"
+    p.write_text(CLOCK_TOML.replace('"Shop regulator"', '"Seat, rear, "').replace(
+        'context = "clock"', 'context = "clock"\nrevision = "A, 2"'))
+    out, _ = run_ok("pendulum", p, "--format", "csv")
+    comments, data = _data_and_comments(out)
+    assert comments[0] == "# Simple pendulum: Seat, rear, , rev. A, 2"
+    assert "# input: design_name = Seat, rear, " in comments
+    assert any(c.startswith("# note: ") for c in comments)
+    assert any(c.startswith("# caution: ") and "licensed engineer" in c for c in comments)
+    rows = list(csv.reader(io.StringIO("\n".join(data))))
+    assert len(rows) == 2 and len(rows[0]) == len(rows[1])   # header + one amplitude
+
+
+def test_csv_comments_have_no_line_breaks_and_signed_zero_and_infinities_are_clean():
+    """Unit check of the formats on a hand-made report: -0.0 is written as 0.0, +inf and
+    -inf as 'inf'/'-inf' in CSV and null in JSON, NaN as an empty cell / null; a text with
+    line breaks stays on its comment line."""
+    from swingcalc.report.formats import to_csv, to_json
+    from swingcalc.report.model import Column, Item, Report, Table
+
+    cols = (Column("a_s", "a"), Column("b_s", "b"), Column("c_s", "c"), Column("d_s", "d"))
+    rep = Report("x", "Title, with comma\nand a break\r", [Item("z_m", "z", -0.0)], [],
+                 [Table("t", "t", cols, ((-0.0, math.inf, -math.inf, math.nan),))],
+                 notes=["one\r\ntwo"], warnings=["w\u2028x"], cautions=["c"])
+    lines = to_csv(rep).splitlines()
+    assert lines[0] == "# Title, with comma and a break"
+    assert lines[1] == "# input: z_m = 0.0"
+    assert lines[2] == "a_s,b_s,c_s,d_s" and lines[3] == "0.0,inf,-inf,"
+    assert lines[4:] == ["# note: one two", "# warning: w x", "# caution: c"]
+    data = json.loads(to_json(rep))
+    assert math.copysign(1.0, data["inputs"]["z_m"]) == 1.0
+    row = data["tables"]["t"][0]
+    assert math.copysign(1.0, row["a_s"]) == 1.0
+    assert row["b_s"] is None and row["c_s"] is None and row["d_s"] is None
+
+
+def test_zero_amplitude_gives_no_negative_zero_in_csv_or_json():
+    """At zero amplitude every error is exactly zero (T = T0; any text); the library
+    returns some of them as -0.0, which the files show as 0.0."""
+    out, _ = run_ok("periods", "--amplitude", "0", "--format", "csv")
+    assert "-0.0" not in out.split(",") and ",-0.0" not in out
+    data = json.loads(run_ok("periods", "--amplitude", "0", "--format", "json")[0])
+    row = data["tables"]["periods"][0]
+    assert row["small_angle_period_error_rel"] == 0.0
+    assert all(math.copysign(1.0, v) == 1.0 for v in row.values() if v == 0.0)
+
+
+def test_overlong_output_name_is_one_short_line(tmp_path):
+    """A file name over 255 bytes makes stat() fail with ENAMETOOLONG (POSIX NAME_MAX on
+    the usual file systems; common practice)."""
+    name = "x" * 300 + ".csv"
+    line = assert_bad(["periods", "--output", tmp_path / name], "--output", "too long")
+    assert len(line) < 300 and name not in line
+    assert os.listdir(tmp_path) == []
+
+
+def test_empty_output_is_refused():
+    assert_bad(["periods", "--output", ""], "--output", "an output file path")
+
+
+def test_file_exists_message_says_force_once(tmp_path):
+    target = tmp_path / "t.csv"
+    target.write_text("keep me")
+    line = assert_bad(["periods", "--output", target], "file exists")
+    assert line.count("--force") == 1
+
+
+def test_close_amplitudes_stay_distinct_in_tables_and_notes():
+    """179.9, 179.99 and 179.999 deg are different inputs; .4g showed all three as 180."""
+    out, _ = run_ok("periods", "--amplitude", "179.9, 179.99, 179.999")
+    cells = [line.split()[0] for line in out.splitlines() if line.strip().startswith("179.9")]
+    assert cells == ["179.9", "179.99", "179.999"]
+    out, _ = run_ok("small-angle", "--amplitude", "30, 179.99")
+    assert "NOT ACCEPTABLE at 30, 179.99 deg" in " ".join(out.split())
+    out, _ = run_ok("pendulum", "--length", "1", "--amplitude", "179.99")
+    assert "at 179.99 deg amplitude" in " ".join(out.split())
+    out, _ = run_ok("periods", "--amplitude", "30")
+    assert re.search(r"^ *30 ", out, re.M)                   # not 30.00000000
+
+
+def test_amplitude_next_to_180_is_never_shown_as_180():
+    data = json.loads(run_ok("periods", "--amplitude", "179.9999999999999", "--format",
+                             "json")[0])
+    assert data["tables"]["periods"][0]["amplitude_deg"] < 180.0
+    out, _ = run_ok("periods", "--amplitude", "179.9999999999999")
+    assert "179.99999999999" in out and not re.search(r"^ *180 ", out, re.M)
+
+
+def test_show_value_significant_digits_for_huge_values_and_no_trailing_point():
+    from swingcalc.report.model import show_value
+
+    assert show_value(3.2784245000410147e25, fmt=".6f") == "3.278425e+25"
+    assert show_value(-1478.3, fmt="#.4g") == "-1478"
+    assert show_value(1.5e-12, fmt="#.4g") == "1.500e-12"
+    assert show_value(1e10, fmt="#.1g") == "1e+10"
+    assert show_value(-1e-9, fmt=".4f") == "0.0000"
+    assert show_value(2.5, fmt=".6f") == "2.500000"
+
+
+def test_upper_bound_near_the_top_is_shown_in_significant_digits():
+    """The upper bound (4 - 3k^2)/(4 - 4k^2) grows like 1/cos^2(A/2) (Stewart, Calculus,
+    8th ed., 11.11 ex. 38): at 179.999 deg about 3.3e9, which fixed decimals would print
+    as a run of ten digits and six decimals."""
+    out, _ = run_ok("periods", "--amplitude", "179.999")
+    assert not re.search(r"\d{9,}", out)
+    with mpmath.workdps(30):     # 4 - 4k^2 cancels badly in floats this close to the top
+        k2 = mpmath.sin(mpmath.radians(mpmath.mpf("179.999")) / 2) ** 2
+        hi = float((4 - 3 * k2) / (4 - 4 * k2))
+    assert f"{hi:#.7g}" in out
+
+
+def test_periods_table_of_ten_thousand_rows_equals_the_scalar_library():
+    """Rows come from one vectorised call per column; the scalar functions give each
+    value on its own. 4e-16 (2 ulp): the array and scalar paths of the library may round
+    differently in the last place."""
+    data = json.loads(run_ok("periods", "--amplitude", "0:179.982:0.018", "--format",
+                             "json")[0])
+    rows = data["tables"]["periods"]
+    assert len(rows) == 10_000
+    for r in rows[::997]:
+        a = r["amplitude_rad"]
+        assert r["period_ratio"] == pytest.approx(swingcalc.period_ratio(a), rel=4e-16)
+        for n in (2, 3, 4):
+            assert r[f"series_{n}_terms_error_rel"] == pytest.approx(
+                swingcalc.series_period_error(a, n), rel=4e-16, abs=1e-300)
+        lo, hi = swingcalc.period_ratio_bounds(a, "agm")
+        assert r["agm_bound_lower_period_ratio"] == pytest.approx(lo, rel=4e-16)
+        assert r["agm_bound_upper_period_ratio"] == pytest.approx(hi, rel=4e-16)
+
+
+def test_small_angle_rows_equal_small_angle_check():
+    """Same 2-ulp allowance as above (array vs scalar paths)."""
+    data = json.loads(run_ok("small-angle", "--amplitude", "1, 7.5, 33, 120, 179",
+                             "--tolerance", "0.5 %", "--cycles", "250", "--format",
+                             "json")[0])
+    assert data["inputs"] == {"tolerance_rel": 0.005, "cycles": 250.0}
+    for r in data["tables"]["checks"]:
+        c = swingcalc.small_angle_check(r["amplitude_rad"], tolerance=0.005, cycles=250)
+        assert r["within_tolerance"] is c.acceptable
+        for key, want in (("period_ratio", c.period_ratio),
+                          ("period_error_rel", c.period_error_rel),
+                          ("series_4_terms_error_rel", c.series_error_rel[4]),
+                          ("bound_upper_period_ratio", c.bounds[1]),
+                          ("peak_tension_error_rel", c.peak_tension_error_rel),
+                          ("phase_error_rad", c.phase_error_rad),
+                          ("clock_rate_s_per_day", c.clock_rate_s_per_day)):
+            assert r[key] == pytest.approx(want, rel=4e-16), key
+
+
+def test_motion_states_its_model_and_carries_the_cautions():
+    data = json.loads(run_ok("motion", "--angle", "100", "--format", "json")[0])
+    assert any("point bob on a light rigid rod" in n and "slack" in n for n in data["notes"])
+    assert any("licensed engineer" in c for c in data["cautions"])
+    out, _ = run_ok("motion", "--angle", "100")
+    assert "CAUTION" in out
+
+
+def test_motion_report_converts_bottom_speed_and_lays_out_the_times():
+    """omega = v / L at the bottom (rigid-body kinematics, any mechanics text)."""
+    from swingcalc.report.builders import motion_report
+
+    rep = motion_report(0.0, None, 2.0, 9.80665, bottom_speed=3.0, duration=2.0, step=0.5)
+    inputs = {i.key: i.value for i in rep.inputs}
+    assert inputs["angular_velocity_rad_s"] == 1.5
+    assert [r[0] for r in rep.tables[0].rows] == [0.0, 0.5, 1.0, 1.5, 2.0]
+    rep = motion_report(0.3, 0.0, 1.0, 9.80665, duration=4.0)
+    assert len(rep.tables[0].rows) == 41                 # default step: duration / 40
+
+
+def test_library_errors_name_the_option_that_gave_the_value():
+    """A subnormal length is refused by the library; the message names --length."""
+    assert_bad(["periods", "--length", "1e-320"], "--length")
+    assert_bad(["motion", "--length", "1e-320"], "--length")
+
+
+def test_missing_option_value_points_to_the_subcommand_help():
+    line = assert_bad(["pendulum", "--length"], "--length")
+    assert "swingcalc pendulum --help" in line
+    line = assert_bad(["small-angle", "--cycles"], "--cycles")
+    assert "swingcalc small-angle --help" in line
+
+
+def test_gravity_word_and_formats_are_defined_once():
+    from swingcalc.cli import options
+    from swingcalc.pendulum import SUSPENSIONS
+    from swingcalc.report.formats import FORMATS
+
+    assert options.FORMATS is FORMATS and options.SUSPENSIONS is SUSPENSIONS
+    data = json.loads(run_ok("periods", "--gravity", " Standard ", "--format", "json")[0])
+    assert data["inputs"]["gravity_m_s2"] == 9.80665      # 3rd CGPM (1901)

@@ -11,7 +11,7 @@ from swingcalc.errors import InvalidInput
 
 GOOD = """\
 name = "Test arm"
-revision = 2
+revision = "2"
 context = "gate"
 
 [pendulum]
@@ -129,3 +129,35 @@ def test_non_utf8_file_is_an_invalid_input(tmp_path):
     p.write_bytes(b"name = \"\xff\xfe\"\n")
     with pytest.raises(InvalidInput, match="UTF-8"):
         load_design(p)
+
+
+@pytest.mark.parametrize("old, new, words", [
+    ('name = "Test arm"', "name = 3", ["name", "wrong type", "text in quotes"]),
+    ('revision = "2"', "revision = 2", ["revision", "wrong type"]),
+    ('name = "Test arm"', 'name = "Arm \\u001b[31mred"', ["name", "control character U+001B"]),
+    ('revision = "2"', 'revision = "2\\u0007"', ["revision", "control character U+0007"]),
+    ('name = "Test arm"', 'name = """Two\nlines"""', ["name", "control character U+000A"]),
+])
+def test_design_strings_are_plain_one_line_texts(old, new, words):
+    msg = _error(_with(old, new))
+    for w in words:
+        assert w in msg, (w, msg)
+
+
+def test_absent_values_show_no_got():
+    for text in (_with('length = "850 mm"\n', ""),
+                 _with('[swing]\namplitude = ["10 deg", "0.5 rad"]\n', "")):
+        msg = _error(text)
+        assert "(got" not in msg, msg
+
+
+def test_case_only_slip_in_a_word_is_suggested():
+    msg = _error(_with('context = "gate"', 'context = "Gate"'))
+    assert "did you mean 'gate'" in msg
+
+
+def test_gravity_word_any_case_and_wrong_type():
+    d = parse_design(_with('gravity = "9.81 m/s^2"', 'gravity = " Standard "'), "arm.toml")
+    assert d.gravity_m_s2 == STANDARD_GRAVITY and d.gravity_given == "standard"
+    msg = _error(_with('gravity = "9.81 m/s^2"', "gravity = true"))
+    assert "environment.gravity" in msg and "wrong type" in msg

@@ -167,3 +167,12 @@ def test_value_count_limit():
     assert len(parse_values(f"1:{MAX_VALUES}:1", "length", "x")) == MAX_VALUES
     with pytest.raises(InvalidInput, match="more than"):
         parse_values(f"0:{MAX_VALUES}:1", "length", "x")
+
+
+def test_suggest_prefers_a_case_only_match_then_close_ones():
+    from swingcalc.quantity import suggest
+
+    assert suggest("FT", ("m", "ft", "in")) == "; did you mean 'ft'?"
+    assert suggest("flexibel", ("rigid", "flexible")) == "; did you mean 'flexible'?"
+    assert suggest("zzz", ("rigid", "flexible")) == ""
+    assert suggest("metres", (), fallback=("metre", "meter")) .startswith("; did you mean")

@@ -6,14 +6,14 @@ from __future__ import annotations
 
 import os
 import sys
+from contextlib import contextmanager
 from pathlib import Path
 from typing import Annotated, Optional
 
 import typer
 from typer.core import TyperGroup
 
-from ..designfile import absent
-from ..errors import InvalidInput, SwingcalcError
+from ..errors import MISSING, InvalidInput, SwingcalcError
 from . import options as opt
 
 __all__ = ["app", "main"]
@@ -33,7 +33,8 @@ class _Group(TyperGroup):
 
     def main(self, args=None, prog_name=None, complete_var=None, standalone_mode=True,
              **extra):
-        # typer 0.29 vendors click as typer._click and exports no UsageError of its own.
+        # typer 0.27-0.28 (the pinned range) vendor click as typer._click and re-export no
+        # UsageError, so the vendored exceptions are the ones the parser raises.
         from typer._click.exceptions import ClickException, UsageError
 
         try:
@@ -45,8 +46,8 @@ class _Group(TyperGroup):
         except SwingcalcError as exc:
             code = _fail(f"internal failure: {exc}", 1)
         except UsageError as exc:
-            cmd = exc.ctx.command_path if exc.ctx is not None else PROG
-            code = _fail(f"{exc.format_message()} (see '{cmd} --help')", 2)
+            code = _fail(f"{exc.format_message()} (see '{self._command_path(exc, args)} "
+                         "--help')", 2)
         except ClickException as exc:
             code = _fail(exc.format_message(), exc.exit_code)
         except typer.Abort:
@@ -60,6 +61,15 @@ class _Group(TyperGroup):
             sys.exit(code)
         return code
 
+    def _command_path(self, exc, args) -> str:
+        """The command a usage error is about: a missing option value comes without one."""
+        if exc.ctx is not None:
+            return exc.ctx.command_path
+        words = sys.argv[1:] if args is None else list(args)
+        if words and words[0] in self.commands:
+            return f"{PROG} {words[0]}"
+        return PROG
+
 
 app = typer.Typer(
     name=PROG, cls=_Group, pretty_exceptions_enable=False, no_args_is_help=False,
@@ -69,11 +79,10 @@ app = typer.Typer(
          "Run with no command for the bundled example design.")
 
 
-def _emit(report, fmt: str | None, output: Path | None, force: bool) -> None:
+def _emit(report, kind: str, output: Path | None, force: bool) -> None:
     """Render the report to the screen or to a file (atomically, no overwrite without --force)."""
     from ..report.formats import render
 
-    kind = opt.output_format(fmt, output)
     if output is not None:
         from ..report.files import write_atomic
 
@@ -88,13 +97,29 @@ def _emit(report, fmt: str | None, output: Path | None, force: bool) -> None:
         sys.stdout.write(render(report, kind))
 
 
-def _precheck(fmt, output, force) -> None:
-    """Catch a bad --format or --output before computing anything."""
-    opt.output_format(fmt, output)
-    if output is not None:
+def _precheck(fmt, output, force) -> tuple[str, Path | None]:
+    """Catch a bad --format or --output before computing anything: (format, output path)."""
+    path = opt.output_path(output)
+    kind = opt.output_format(fmt, path)
+    if path is not None:
         from ..report.files import check_writable
 
-        check_writable(output, force)
+        check_writable(path, force)
+    return kind, path
+
+
+@contextmanager
+def _options_named(**given):
+    """Report a library error about ``length`` etc. against the option that gave it.
+
+    ``given`` maps library field names to option names, for the options actually given
+    (a value from a design file keeps the library's field name)."""
+    try:
+        yield
+    except InvalidInput as exc:
+        if exc.field in given:
+            raise exc.renamed(given[exc.field]) from None
+        raise
 
 
 def _design(design: Path | None, length, mass, suspension, amplitude, gravity):
@@ -112,8 +137,9 @@ def _design(design: Path | None, length, mass, suspension, amplitude, gravity):
         d = parse_design(examples.text(), f"bundled example {examples.DEFAULT}")
     else:
         if length is None:
-            raise absent("--length", "a length such as '994 mm' (or a design file)",
-                         "required with --mass or --suspension when no design file is given")
+            raise InvalidInput("--length", MISSING, "a length such as '994 mm' (or a design file)",
+                               "required with --mass or --suspension when no design file is "
+                               "given")
         d = Design(name="pendulum from options", revision="", context="general",
                    body=SimpleBody(length_m=1.0, bob_mass_kg=1.0, suspension="rigid"),
                    amplitudes_rad=(0.17453292519943295,),   # 10 deg
@@ -163,9 +189,18 @@ def pendulum(design: DesignArg = None, length: opt.Length = None, amplitude: opt
 def _pendulum(design, length, amplitude, mass, suspension, gravity, fmt, output, force):
     from ..report.builders import pendulum_report
 
-    _precheck(fmt, output, force)
+    kind, path = _precheck(fmt, output, force)
     d = _design(design, length, mass, suspension, amplitude, gravity)
-    _emit(pendulum_report(d), fmt, output, force)
+    with _options_named(**_given(length=(length, "--length"), mass=(mass, "--mass"),
+                                 gravity=(gravity, "--gravity"),
+                                 amplitude=(amplitude, "--amplitude"))):
+        report = pendulum_report(d)
+    _emit(report, kind, path, force)
+
+
+def _given(**pairs) -> dict:
+    """{library field: option} for the options given (value not None)."""
+    return {name: option for name, (value, option) in pairs.items() if value is not None}
 
 
 @app.command("periods")
@@ -179,11 +214,14 @@ def periods(amplitude: Annotated[str, typer.Option(
     the 2-, 3- and 4-term series and rigorous bounds. Default length 1 m."""
     from ..report.builders import periods_report
 
-    _precheck(fmt, output, force)
+    kind, path = _precheck(fmt, output, force)
     amps = opt.amplitudes(amplitude)
     L = opt.length(length) if length is not None else 1.0
     g, given = opt.gravity(gravity)
-    _emit(periods_report(amps, L, g, given), fmt, output, force)
+    with _options_named(**_given(length=(length, "--length"), gravity=(gravity, "--gravity"),
+                                 amplitude=(amplitude, "--amplitude"))):
+        report = periods_report(amps, L, g, given)
+    _emit(report, kind, path, force)
 
 
 @app.command("small-angle")
@@ -199,11 +237,13 @@ def small_angle(amplitude: Annotated[str, typer.Option(
     tolerance, and a verdict."""
     from ..report.builders import small_angle_report
 
-    _precheck(fmt, output, force)
+    kind, path = _precheck(fmt, output, force)
     amps = opt.amplitudes(amplitude)
     tol = opt.tolerance(tolerance)
     n = opt.cycles(cycles)
-    _emit(small_angle_report(amps, tol, n), fmt, output, force)
+    with _options_named(amplitude="--amplitude", tolerance="--tolerance", cycles="--cycles"):
+        report = small_angle_report(amps, tol, n)
+    _emit(report, kind, path, force)
 
 
 @app.command("motion")
@@ -226,12 +266,10 @@ def motion(angle: Annotated[str, typer.Option(
            fmt: opt.Format = None, output: opt.Output = None, force: opt.Force = False) -> None:
     """Classify a start state (libration, rotation, separatrix, rest, balanced) and
     optionally tabulate its exact time history."""
-    import numpy as np
-
     from ..quantity import parse_quantity
     from ..report.builders import motion_report
 
-    _precheck(fmt, output, force)
+    kind, path = _precheck(fmt, output, force)
     L = opt.length(length) if length is not None else 1.0
     g, _ = opt.gravity(gravity)
     theta = parse_quantity(angle, "angle", "--angle",
@@ -239,25 +277,27 @@ def motion(angle: Annotated[str, typer.Option(
     if angular_speed is not None and bottom_speed is not None:
         raise InvalidInput("--bottom-speed", bottom_speed,
                            "either --angular-speed or --bottom-speed", "give only one of them")
-    omega = 0.0
+    omega = v = None
     if angular_speed is not None:
         omega = parse_quantity(angular_speed, "angular_velocity", "--angular-speed")
     if bottom_speed is not None:
         if theta != 0.0:
             raise InvalidInput("--angle", angle, "0 (or leave it out) with --bottom-speed",
                                "--bottom-speed starts the swing at the bottom")
-        omega = parse_quantity(bottom_speed, "speed", "--bottom-speed") / L
-    times = None
-    if duration is not None:
-        T = opt.positive_time(duration, "--duration")
-        dt = opt.positive_time(step, "--step") if step is not None else T / 40.0
-        if T / dt > 10_000:
-            raise InvalidInput("--step", step, "at most 10000 steps over --duration",
-                               "too many samples")
-        times = np.arange(0.0, T + 0.5 * dt, dt)
-    elif step is not None:
-        raise absent("--duration", "a time, e.g. '4 s', with --step", "--step needs --duration")
-    _emit(motion_report(theta, omega, L, g, times), fmt, output, force)
+        v = parse_quantity(bottom_speed, "speed", "--bottom-speed")
+    T = opt.positive_time(duration, "--duration") if duration is not None else None
+    dt = opt.positive_time(step, "--step") if step is not None else None
+    if dt is not None and T is None:
+        raise InvalidInput("--duration", MISSING, "a time, e.g. '4 s', with --step",
+                           "--step needs --duration")
+    names = _given(angle=(angle, "--angle"), length=(length, "--length"),
+                   gravity=(gravity, "--gravity"), duration=(duration, "--duration"),
+                   step=(step, "--step"), bottom_speed=(bottom_speed, "--bottom-speed"),
+                   angular_velocity=(angular_speed or bottom_speed,
+                                     "--angular-speed" if angular_speed else "--bottom-speed"))
+    with _options_named(**names):
+        report = motion_report(theta, omega, L, g, bottom_speed=v, duration=T, step=dt)
+    _emit(report, kind, path, force)
 
 
 def main(argv=None) -> None:

@@ -12,18 +12,18 @@ from typing import Annotated, Optional
 
 import typer
 
-from ..constants import STANDARD_GRAVITY
-from ..designfile import SUSPENSIONS, suggest
+from ..designfile import parse_gravity
 from ..errors import InvalidInput
-from ..quantity import parse_quantity, parse_values, split_magnitude
+from ..pendulum import SUSPENSIONS
+from ..quantity import parse_quantity, parse_values, split_magnitude, suggest
+from ..report.formats import FORMATS
 
 __all__ = [
     "Amplitude", "Cycles", "Force", "Format", "Gravity", "Length", "Mass", "Output",
     "Suspension", "Tolerance", "amplitudes", "cycles", "gravity", "length", "mass",
-    "output_format", "positive_time", "suspension", "tolerance",
+    "output_format", "output_path", "positive_time", "suspension", "tolerance",
 ]
 
-FORMATS = ("table", "csv", "json", "markdown")
 _SUFFIX_FORMATS = {".csv": "csv", ".json": "json", ".md": "markdown", ".markdown": "markdown",
                    ".txt": "table", ".text": "table"}
 _AMPLITUDE_ALLOWED = ("libration amplitudes in [0, 180) deg: one value, a list '10, 20, 30' "
@@ -52,9 +52,9 @@ Cycles = Annotated[str, typer.Option(
 Format = Annotated[Optional[str], typer.Option(
     "--format", metavar="FORMAT",
     help="table, csv, json or markdown (default: table, or from the --output suffix).")]
-Output = Annotated[Optional[Path], typer.Option(
-    "--output", "-o", metavar="FILE", help="Write to FILE (atomically) instead of the screen.",
-    dir_okay=True, resolve_path=False)]
+# Text, not a Path: the option framework would turn '' into '.', a folder.
+Output = Annotated[Optional[str], typer.Option(
+    "--output", "-o", metavar="FILE", help="Write to FILE (atomically) instead of the screen.")]
 Force = Annotated[bool, typer.Option("--force", help="Replace an existing --output file.")]
 
 
@@ -70,11 +70,7 @@ def mass(text: str, field: str = "--mass") -> float:
 
 def gravity(text: str | None, field: str = "--gravity") -> tuple[float, str]:
     """(gravity [m/s^2], how it was given); None or 'standard' is standard gravity."""
-    if text is None or text.strip().lower() == "standard":
-        return STANDARD_GRAVITY, "standard"
-    g = parse_quantity(text, "acceleration", field, minimum=0.0, include_min=False,
-                       allowed="'standard' or an acceleration > 0, e.g. '9.8123 m/s^2'")
-    return g, text
+    return parse_gravity(text, field)
 
 
 def amplitudes(text: str, field: str = "--amplitude") -> list[float]:
@@ -109,6 +105,15 @@ def cycles(text: str, field: str = "--cycles") -> float:
 def positive_time(text: str, field: str) -> float:
     return parse_quantity(text, "time", field, minimum=0.0, include_min=False,
                           allowed="a time > 0, e.g. '10 s', '2 min' or a bare number in s")
+
+
+def output_path(text: str | None, field: str = "--output") -> Path | None:
+    """The --output path; an empty one is refused here (as a Path it would be '.')."""
+    if text is None:
+        return None
+    if not text.strip():
+        raise InvalidInput(field, text, "an output file path, e.g. 'report.csv'", "empty value")
+    return Path(text)
 
 
 def output_format(fmt: str | None, output: Path | None) -> str:

@@ -5,7 +5,7 @@ from __future__ import annotations
 
 import os
 
-__all__ = ["print_report", "print_error"]
+__all__ = ["print_report"]
 
 
 def _console(stderr: bool = False):

@@ -11,21 +11,27 @@ from ..errors import InvalidInput
 
 __all__ = ["check_writable", "write_atomic"]
 
-_ALLOWED = "a path to a new file in a writable folder (add --force to replace a file)"
+_ALLOWED = "a path to a new file in a writable folder (or --force to replace a file)"
 
 
 def check_writable(path, force: bool = False, field: str = "--output") -> Path:
     """Fail early (before any computing) if ``path`` cannot be written."""
+    if str(path) == "":
+        raise InvalidInput(field, path, "an output file path, e.g. 'report.csv'", "empty value")
     p = Path(path)
-    if p.is_dir():
-        raise InvalidInput(field, str(path), _ALLOWED, "is a folder, not a file")
-    if p.exists() and not force:
-        raise InvalidInput(field, str(path), _ALLOWED, "file exists; add --force to replace it")
     parent = p.parent if str(p.parent) else Path(".")
-    if not parent.is_dir():
-        raise InvalidInput(field, str(path), _ALLOWED, "its folder does not exist")
-    if not os.access(parent, os.W_OK | os.X_OK):
-        raise InvalidInput(field, str(path), _ALLOWED, "its folder is not writable")
+    try:
+        problem = ("is a folder, not a file" if p.is_dir()
+                   else "file exists" if p.exists() and not force
+                   else "its folder does not exist" if not parent.is_dir()
+                   else "its folder is not writable" if not os.access(parent, os.W_OK | os.X_OK)
+                   else None)
+    except OSError as exc:      # e.g. a name over 255 bytes: ENAMETOOLONG from stat
+        problem = f"cannot use this path ({exc.strerror or type(exc).__name__})"
+    except ValueError:          # a NUL byte in the name
+        problem = "the path contains a NUL byte"
+    if problem:
+        raise InvalidInput(field, _shown(path), _ALLOWED, problem)
     return p
 
 
@@ -42,7 +48,7 @@ def write_atomic(path, text: str, force: bool = False, field: str = "--output") 
     try:
         fd, tmp = tempfile.mkstemp(prefix=f".{p.name}.", suffix=".tmp", dir=parent)
     except OSError as exc:
-        raise InvalidInput(field, str(path), _ALLOWED,
+        raise InvalidInput(field, _shown(path), _ALLOWED,
                            f"cannot write there ({exc.strerror or exc})") from None
     try:
         try:
@@ -56,15 +62,20 @@ def write_atomic(path, text: str, force: bool = False, field: str = "--output") 
             else:
                 _link_no_clobber(tmp, p)
         except FileExistsError:
-            raise InvalidInput(field, str(path), _ALLOWED,
-                               "file exists; add --force to replace it") from None
+            raise InvalidInput(field, _shown(path), _ALLOWED, "file exists") from None
         except OSError as exc:
-            raise InvalidInput(field, str(path), _ALLOWED,
+            raise InvalidInput(field, _shown(path), _ALLOWED,
                                f"cannot write there ({exc.strerror or exc})") from None
     finally:
         if os.path.exists(tmp):
             os.unlink(tmp)
     return p
+
+
+def _shown(path) -> str:
+    """The path for a message, shortened in the middle when long (names can be 4 KB)."""
+    text = str(path)
+    return text if len(text) <= 50 else f"{text[:30]}...{text[-17:]}"
 
 
 def _link_no_clobber(tmp: str, target: Path) -> None:

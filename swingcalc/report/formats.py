@@ -27,32 +27,43 @@ def _csv_value(value):
     if isinstance(value, bool):
         return "true" if value else "false"
     if isinstance(value, float):
-        return repr(value) if math.isfinite(value) else ("inf" if value > 0 else "")
+        if math.isnan(value):
+            return ""
+        if math.isinf(value):
+            return "inf" if value > 0 else "-inf"
+        return repr(float(value) + 0.0)     # + 0.0: -0.0 becomes 0.0
     return value
+
+
+def _comment(text) -> str:
+    """One raw comment line: '#' first, whatever the text holds (no CSV quoting)."""
+    return "# " + " ".join(str(text).splitlines())
 
 
 def to_csv(report: Report) -> str:
     """Rectangular tables (header of unit-suffixed keys, full-precision SI values).
 
-    Inputs, summary, warnings and cautions are lines whose first cell starts with ``#``
-    (``pandas.read_csv(..., comment="#")`` skips them; a spreadsheet shows them).
+    The title, inputs, summary, notes, warnings and cautions are comment lines that start
+    with ``#`` (``pandas.read_csv(..., comment="#")`` skips them; a spreadsheet shows
+    them): ``# input: length_m = 0.994``, ``# caution: ...``. The data tables are proper
+    CSV, separated by a blank line.
     """
     buf = io.StringIO()
     w = csv.writer(buf, lineterminator="\n")
-    w.writerow([f"# {report.title}"])
+    lines = [_comment(report.title)]
     for kind, items in (("input", report.inputs), ("summary", report.summary)):
-        for i in items:
-            w.writerow([f"# {kind}", i.key, _csv_value(i.value)])
+        lines += [_comment(f"{kind}: {i.key} = {_csv_value(i.value)}") for i in items]
+    buf.write("\n".join(lines) + "\n")
     for n, t in enumerate(report.tables):
         if n:
-            w.writerow([])
+            buf.write("\n")
         w.writerow([c.key for c in t.columns])
         for row in t.rows:
             w.writerow([_csv_value(v) for v in row])
     for kind, texts in (("note", report.notes), ("warning", report.warnings),
                         ("caution", report.cautions)):
         for text in texts:
-            w.writerow([f"# {kind}", text])
+            buf.write(_comment(f"{kind}: {text}") + "\n")
     return buf.getvalue()
 
 

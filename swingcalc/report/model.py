@@ -12,12 +12,21 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
-__all__ = ["Item", "Column", "Table", "Report", "show_value"]
+__all__ = ["Item", "Column", "Table", "Report", "amplitude_text", "show_value"]
+
+# From here up a fixed-point format shows digits that mean nothing (3.2e25 as 26 digits).
+_FIXED_LIMIT = 1e9
 
 
-def show_value(value, scale: float = 1.0, fmt: str = ".6g", unit: str = "",
+def show_value(value, scale: float = 1.0, fmt=".6g", unit: str = "",
                missing: str = "-") -> str:
-    """Text for one value: ``value * scale`` in ``fmt``, then the unit."""
+    """Text for one value: ``value * scale`` in ``fmt``, then the unit.
+
+    ``fmt`` is a format spec or a function of the scaled value that returns its text. A
+    fixed-point spec (``".6f"``) gives way to 7 significant digits from 1e9 up, where it
+    would print a long run of meaningless digits; a trailing '.' left by a ``#`` spec
+    ("1478.") is dropped.
+    """
     if value is None:
         return missing
     if isinstance(value, bool):
@@ -29,9 +38,26 @@ def show_value(value, scale: float = 1.0, fmt: str = ".6g", unit: str = "",
         text = "inf" if v > 0 else "-inf"
     elif math.isnan(v):
         return missing
+    elif callable(fmt):
+        text = fmt(v)
     else:
-        text = format(v + 0.0 if v == 0.0 else v, fmt)   # no "-0"
+        if fmt[-1:] in ("f", "F") and abs(v) >= _FIXED_LIMIT:
+            fmt = "#.7g"
+        text = format(v, fmt)
+        text = text[:-1] if text.endswith(".") else text.replace(".e", "e")
+        if text.startswith("-") and float(text) == 0.0:     # no "-0" or "-0.000"
+            text = text[1:]
     return f"{text} {unit}".rstrip() if unit else text
+
+
+def amplitude_text(degrees: float, digits: int = 10) -> str:
+    """An amplitude [deg] with up to ``digits`` significant digits, trailing zeros dropped;
+    more digits when that would round it up to 180 (which is not an amplitude)."""
+    for digits in range(digits, 18):
+        text = format(degrees, f".{digits}g")
+        if float(text) < 180.0 or degrees >= 180.0:
+            return text
+    return repr(degrees)
 
 
 @dataclass(frozen=True)
@@ -43,7 +69,7 @@ class Item:
     value: object
     unit: str = ""          # display unit
     scale: float = 1.0      # SI value * scale = display value
-    fmt: str = ".6g"
+    fmt: object = ".6g"     # format spec, or a function of the display value
 
     @property
     def shown(self) -> str:
@@ -58,7 +84,7 @@ class Column:
     label: str
     unit: str = ""
     scale: float = 1.0
-    fmt: str = ".6g"
+    fmt: object = ".6g"     # format spec, or a function of the display value
     in_text: bool = True    # shown in terminal/plain-text/markdown tables
     missing: str = "-"
 
@@ -137,9 +163,11 @@ class Report:
 
 
 def _plain(value):
-    """JSON has no inf/NaN: they become null (the text formats say 'inf')."""
-    if isinstance(value, float) and not math.isfinite(value):
-        return None
+    """JSON has no inf/NaN: they become null (the text formats say 'inf'); -0.0 is 0.0."""
+    if isinstance(value, bool):
+        return value
+    if isinstance(value, float):
+        return float(value) + 0.0 if math.isfinite(value) else None
     if isinstance(value, (list, tuple)):
         return [_plain(v) for v in value]
     if isinstance(value, dict):
