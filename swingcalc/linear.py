@@ -29,6 +29,7 @@ __all__ = [
     "phase_error",
     "clock_rate_error",
     "max_amplitude_for_period_error",
+    "max_period_error_tolerance",
     "SmallAngleCheck",
     "small_angle_check",
 ]
@@ -200,6 +201,20 @@ def clock_rate_error(amplitude):
     return finalize(-SECONDS_PER_DAY * e / (1.0 + e), scalar)
 
 
+def max_period_error_tolerance(relative_to="exact") -> float:
+    """Largest small-angle period error any amplitude below 180 deg reaches.
+
+    0.957759 for ``exact`` ((T - T0)/T = e/(1 + e)) and 22.6736 for ``small_angle``
+    ((T - T0)/T0 = e), with e = :func:`~swingcalc.swing.max_period_excess`.
+    """
+    top = max_period_excess()
+    if relative_to == "exact":
+        return top / (1.0 + top)
+    if relative_to == "small_angle":
+        return top
+    raise InvalidInput("relative_to", relative_to, "'exact' or 'small_angle'")
+
+
 def max_amplitude_for_period_error(tolerance, relative_to="exact"):
     """Largest amplitude [rad] at which the small-angle period is within ``tolerance``.
 
@@ -217,13 +232,8 @@ def max_amplitude_for_period_error(tolerance, relative_to="exact"):
     >>> round(math.degrees(max_amplitude_for_period_error(0.01)), 9)
     22.927726631
     """
+    limit = max_period_error_tolerance(relative_to)
     top = max_period_excess()
-    if relative_to == "exact":
-        limit = top / (1.0 + top)   # (T - T0)/T = e / (1 + e)
-    elif relative_to == "small_angle":
-        limit = top
-    else:
-        raise InvalidInput("relative_to", relative_to, "'exact' or 'small_angle'")
     tol, scalar = real_array(
         tolerance, "tolerance",
         f"a finite relative error in (0, {limit:.6g}] (a larger one is never reached "
@@ -289,7 +299,8 @@ def small_angle_check(amplitude, tolerance=0.001, cycles=100.0):
     amplitude : float
         [rad] in [0, pi).
     tolerance : float
-        Accepted relative period error, in (0, 1). Default 0.1 %.
+        Accepted relative period error, in (0, 0.9577] (see
+        :func:`max_period_error_tolerance`). Default 0.1 %.
     cycles : float
         Number of periods for the accumulated phase error (default 100).
     """
@@ -297,8 +308,9 @@ def small_angle_check(amplitude, tolerance=0.001, cycles=100.0):
     if not scalar:
         raise InvalidInput("amplitude", amplitude, "a single amplitude [rad]", "not a scalar")
     a = float(a)
-    tol = real_scalar(tolerance, "tolerance", "a finite relative error in (0, 1)",
-                      low=0.0, high=1.0, low_open=True, high_open=True)
+    top = max_period_error_tolerance()
+    tol = real_scalar(tolerance, "tolerance", f"a finite relative error in (0, {top:.6g}]",
+                      low=0.0, high=top, low_open=True)
     n_cycles = real_scalar(cycles, "cycles", "a finite number of cycles >= 0", low=0.0)
     err = small_angle_period_error(a)
     limit = max_amplitude_for_period_error(tol)

@@ -219,3 +219,21 @@ def test_bad_input_raises_invalid_input_naming_the_field(call, field):
     assert isinstance(info.value, ValueError)
     assert info.value.field == field
     assert str(info.value).startswith(field)
+
+
+def test_tolerance_beyond_the_largest_reachable_error_is_refused_by_name():
+    """No amplitude below 180 deg has a small-angle error above e/(1 + e), e = T/T0 - 1 at
+    the largest float amplitude (22.67, from mpmath in test_period.py): a tolerance of 0.99
+    is refused as a tolerance, not as a 'period ratio' the caller never gave."""
+    top = swingcalc.max_period_error_tolerance()
+    with mpmath.workdps(50):
+        a_max = mpmath.mpf(math.nextafter(math.pi, 0.0))
+        e = 2 / mpmath.pi * mpmath.ellipk(mpmath.sin(a_max / 2) ** 2) - 1
+        expected = float(e / (1 + e))
+    assert top == pytest.approx(expected, rel=1e-14)
+    for call in (lambda: swingcalc.small_angle_check(0.1, tolerance=0.99),
+                 lambda: swingcalc.max_amplitude_for_period_error(0.99)):
+        with pytest.raises(swingcalc.InvalidInput, match="^tolerance"):
+            call()
+    assert swingcalc.max_amplitude_for_period_error(top) == pytest.approx(
+        math.nextafter(math.pi, 0.0), abs=4e-16)

@@ -87,9 +87,13 @@ def suspension(text: str, field: str = "--suspension") -> str:
 
 
 def tolerance(text: str, field: str = "--tolerance") -> float:
-    return parse_quantity(text, "fraction", field, minimum=0.0, maximum=1.0, include_min=False,
-                          include_max=False,
-                          allowed="a relative error in (0, 1), e.g. '0.1 %', '500 ppm' or 0.001")
+    from ..linear import max_period_error_tolerance
+
+    top = max_period_error_tolerance()
+    return parse_quantity(text, "fraction", field, minimum=0.0, maximum=top, include_min=False,
+                          include_max=True,
+                          allowed=f"a relative error in (0, {top:.6g}], e.g. '0.1 %', "
+                                  "'500 ppm' or 0.001")
 
 
 def cycles(text: str, field: str = "--cycles") -> float:
