@@ -610,3 +610,19 @@ def test_gravity_word_and_formats_are_defined_once():
     assert options.FORMATS is FORMATS and options.SUSPENSIONS is SUSPENSIONS
     data = json.loads(run_ok("periods", "--gravity", " Standard ", "--format", "json")[0])
     assert data["inputs"]["gravity_m_s2"] == 9.80665      # 3rd CGPM (1901)
+
+
+def test_periods_json_carries_the_harmonic_content_from_the_nome_series():
+    """3rd and 5th harmonics of theta(t) over the fundamental at 90 deg. Reference: the
+    nome series a_N/a_1 = q^((N-1)/2) (1 + q) / (N (1 + q^N)) evaluated with mpmath's own
+    nome at m = 1/2 (mpmath.qfrom), 30 digits; the formula itself is checked against an
+    FFT of the integrated swing in test_history.py. 1e-13: the nome carries a few ulp of
+    pi K'/K."""
+    data = json.loads(run_ok("periods", "--amplitude", "90", "--format", "json")[0])
+    row = data["tables"]["periods"][0]
+    with mpmath.workdps(30):
+        q = mpmath.qfrom(m=mpmath.mpf(1) / 2)
+        ref3 = q * (1 + q) / (3 * (1 + q**3))
+        ref5 = q**2 * (1 + q) / (5 * (1 + q**5))
+    assert row["harmonic_3_rel"] == pytest.approx(float(ref3), rel=1e-13)
+    assert row["harmonic_5_rel"] == pytest.approx(float(ref5), rel=1e-13)

@@ -6,8 +6,8 @@ import math
 
 import numpy as np
 
-from .. import (classify, clock_rate_error, peak_speed_error, peak_tension_error,
-                period_excess, period_ratio, period_ratio_bounds, phase_error,
+from .. import (classify, clock_rate_error, harmonic_ratio, peak_speed_error,
+                peak_tension_error, period_excess, period_ratio, period_ratio_bounds, phase_error,
                 series_period_error, series_period_ratio, simple_pendulum, small_angle_check,
                 small_angle_period, small_angle_period_error, swing_history)
 from ..errors import MISSING, InvalidInput
@@ -87,6 +87,7 @@ def pendulum_report(design) -> Report:
                fmt=".4g", missing="never"),
         Column("zero_tension_angle_rad", "zero-tension angle", "rad", in_text=False),
         Column("separatrix_margin", "separatrix margin 1 - E/E_sep", "", fmt="#.4g"),
+        Column("harmonic_3_rel", "3rd harmonic / fundamental", "%", 100.0, "#.3g"),
     ]
     rows, warnings = [], []
     for a, r in zip(design.amplitudes_rad, results):
@@ -97,7 +98,7 @@ def pendulum_report(design) -> Report:
             row.append(clock_rate_error(a))
         row += [r.peak_angular_speed_rad_s, r.peak_speed_m_s, r.peak_tension_N,
                 r.peak_tension_N / (r.mass_kg * r.gravity_m_s2), r.min_tension_N, r.energy_J,
-                None if z is None else z * _DEG, z, r.separatrix_margin]
+                None if z is None else z * _DEG, z, r.separatrix_margin, harmonic_ratio(a, 3)]
         rows.append(tuple(row))
         warnings += [f"at {_deg(a)} deg amplitude: {w}" for w in r.warnings]
     first = results[0]
@@ -141,7 +142,11 @@ def periods_report(amplitudes, length: float, gravity: float, gravity_given: str
              # grows like 1/cos^2(A/2): significant digits, not fixed decimals
              Column("bound_upper_period_ratio", "T/T0 upper bound", "", fmt="#.7g"),
              Column("agm_bound_lower_period_ratio", "AGM lower bound", "", in_text=False),
-             Column("agm_bound_upper_period_ratio", "AGM upper bound", "", in_text=False)]
+             Column("agm_bound_upper_period_ratio", "AGM upper bound", "", in_text=False),
+             Column("harmonic_3_rel", "3rd harmonic / fundamental", "%", 100.0, "#.3g",
+                    in_text=False),
+             Column("harmonic_5_rel", "5th harmonic / fundamental", "%", 100.0, "#.3g",
+                    in_text=False)]
     amps = np.asarray(amplitudes, dtype=float)
     ratio = period_ratio(amps)
     columns = [[_deg_value(a) for a in _floats(amps)], _floats(amps), _floats(ratio),
@@ -150,6 +155,7 @@ def periods_report(amplitudes, length: float, gravity: float, gravity_given: str
         columns += [_floats(series_period_ratio(amps, n)), _floats(series_period_error(amps, n))]
     columns += [_floats(b) for b in period_ratio_bounds(amps, "series")]
     columns += [_floats(b) for b in period_ratio_bounds(amps, "agm")]
+    columns += [_floats(harmonic_ratio(amps, n)) for n in (3, 5)]
     rows = list(zip(*columns))
     inputs = [Item("length_m", "length, pivot to bob centre", length, "m", fmt=".6g"),
               Item("gravity_m_s2", "gravity" + (" (standard)" if gravity_given == "standard"
