@@ -626,3 +626,8 @@ def test_periods_json_carries_the_harmonic_content_from_the_nome_series():
         ref5 = q**2 * (1 + q) / (5 * (1 + q**5))
     assert row["harmonic_3_rel"] == pytest.approx(float(ref3), rel=1e-13)
     assert row["harmonic_5_rel"] == pytest.approx(float(ref5), rel=1e-13)
+
+
+def test_version_option_prints_the_package_version():
+    out, _ = run_ok("--version")
+    assert out.strip() == f"swingcalc {swingcalc.__version__}"

@@ -165,8 +165,19 @@ DesignArg = Annotated[Optional[Path], typer.Argument(
     show_default=False)]
 
 
+def _show_version(value: bool) -> None:
+    if value:
+        from .. import __version__
+
+        sys.stdout.write(f"{PROG} {__version__}\n")
+        raise typer.Exit()
+
+
 @app.callback(invoke_without_command=True)
-def _root(ctx: typer.Context) -> None:
+def _root(ctx: typer.Context,
+          version: Annotated[bool, typer.Option(
+              "--version", callback=_show_version, is_eager=True,
+              help="Print the version and exit.")] = False) -> None:
     """Pendulum design calculations. With no command: `pendulum` on the bundled example."""
     if ctx.invoked_subcommand is None:
         _pendulum(None, None, None, None, None, None, None, None, False)
