@@ -492,7 +492,7 @@ def classify(angle, angular_velocity, length, gravity=STANDARD_GRAVITY, toleranc
                    "to any disturbance")
     elif q > 0.0:
         regime = Regime.LIBRATION
-        message = f"libration, amplitude {math.degrees(amplitude):.6g} deg"
+        message = f"libration, amplitude {math.degrees(amplitude):.10g} deg"
     else:
         regime = Regime.ROTATION
         message = f"rotation ({'+' if direction > 0 else '-'}), over the top"

@@ -631,3 +631,14 @@ def test_periods_json_carries_the_harmonic_content_from_the_nome_series():
 def test_version_option_prints_the_package_version():
     out, _ = run_ok("--version")
     assert out.strip() == f"swingcalc {swingcalc.__version__}"
+
+
+def test_force_never_replaces_a_device_or_pipe(tmp_path):
+    """--force replaces a regular file only: a FIFO (like a device node) stays what it is
+    and the command refuses with one line (common practice for file-writing tools)."""
+    fifo = tmp_path / "pipe.csv"
+    os.mkfifo(fifo)
+    code, out, err = run("periods", "--output", str(fifo), "--force")
+    assert code == 2 and len(err.strip().splitlines()) == 1
+    assert "not a regular file" in err
+    assert fifo.is_fifo()

@@ -22,6 +22,8 @@ def check_writable(path, force: bool = False, field: str = "--output") -> Path:
     parent = p.parent if str(p.parent) else Path(".")
     try:
         problem = ("is a folder, not a file" if p.is_dir()
+                   else "is not a regular file (a device, pipe or socket is never replaced)"
+                   if p.exists() and not p.is_file()
                    else "file exists" if p.exists() and not force
                    else "its folder does not exist" if not parent.is_dir()
                    else "its folder is not writable" if not os.access(parent, os.W_OK | os.X_OK)
