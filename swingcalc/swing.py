@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field
+from functools import lru_cache
 
 import numpy as np
 from scipy import special
@@ -185,9 +186,10 @@ def rotation_period_ratio(energy_ratio):
     Notes
     -----
     T_rev / T0 = K(1/h) / (pi sqrt(h)), from theta/2 = am(sqrt(h) omega0 t | 1/h)
-    (Lawden 1989 §5.2). The complement 1 - 1/h = (h - 1)/h is formed exactly for the h
-    a float can hold; for states next to the separatrix use :func:`rotation_period` or
-    :func:`classify`, which form h - 1 without cancellation.
+    (Lawden 1989 §5.2). The complement 1 - 1/h = (h - 1)/h uses 1 - h, exact in floating
+    point for h <= 2; a float h next to 1 carries its own rounding, so for states next to
+    the separatrix use :func:`rotation_period` or :func:`classify`, which form 1 - h from
+    the speed without cancellation.
     """
     h, scalar = real_array(energy_ratio, "energy_ratio",
                            "a finite energy ratio E/E_sep > 1", low=1.0, low_open=True)
@@ -224,9 +226,10 @@ def rotation_period(length, bottom_speed, gravity=STANDARD_GRAVITY):
 def amplitude_for_period_excess(excess):
     """The libration amplitude [rad] whose T/T0 - 1 equals ``excess`` (>= 0).
 
-    Solved by safeguarded Newton iteration in x = ln(m/p), on which T/T0 is close to
-    linear at both ends (m ~ 4 e^x / ... for small amplitudes, T/T0 ~ (x + ln 16)/pi near
-    the separatrix); the amplitude is 2 atan(exp(x/2)).
+    Solved by safeguarded Newton iteration in x = ln(m/p), in which the problem is
+    close to linear at both ends (excess ~ m/4 ~ e^x/4 for small amplitudes, T/T0 ~
+    (x + ln 16)/pi near the separatrix), with bisection when a step leaves the bracket;
+    the amplitude is 2 atan(exp(x/2)).
     """
     top = max_period_excess()
     e, scalar = real_array(excess, "period_excess",
@@ -245,6 +248,7 @@ def amplitude_for_period_excess(excess):
 _X_LOW, _X_HIGH = -745.0, 2.0 * math.log(math.tan(0.5 * math.nextafter(math.pi, 0.0)))
 
 
+@lru_cache(maxsize=None)
 def max_period_excess() -> float:
     """T/T0 - 1 at the largest float amplitude below pi (22.67): no larger one exists."""
     return float(_k.excess_for_logit(np.array([_X_HIGH]))[0][0])
