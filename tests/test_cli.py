@@ -642,3 +642,12 @@ def test_force_never_replaces_a_device_or_pipe(tmp_path):
     assert code == 2 and len(err.strip().splitlines()) == 1
     assert "not a regular file" in err
     assert fifo.is_fifo()
+
+
+def test_main_job_takes_the_format_options_too():
+    """`swingcalc --format json` is the main job in JSON (PRODUCT.md: --format on every
+    command that prints results); before a subcommand the option is refused by name."""
+    data = json.loads(run_ok("--format", "json")[0])
+    assert data["command"] == "pendulum" and data["cautions"]
+    code, _, err = run("--format", "json", "periods")
+    assert code == 2 and len(err.strip().splitlines()) == 1 and "--format" in err

@@ -177,10 +177,18 @@ def _show_version(value: bool) -> None:
 def _root(ctx: typer.Context,
           version: Annotated[bool, typer.Option(
               "--version", callback=_show_version, is_eager=True,
-              help="Print the version and exit.")] = False) -> None:
-    """Pendulum design calculations. With no command: `pendulum` on the bundled example."""
+              help="Print the version and exit.")] = False,
+          fmt: opt.Format = None, output: opt.Output = None, force: opt.Force = False) -> None:
+    """Pendulum design calculations. With no command: `pendulum` on the bundled example
+    (--format, --output and --force apply to it)."""
     if ctx.invoked_subcommand is None:
-        _pendulum(None, None, None, None, None, None, None, None, False)
+        _pendulum(None, None, None, None, None, None, fmt, output, force)
+    elif fmt is not None or output is not None or force:
+        given = "--format" if fmt is not None else "--output" if output is not None else "--force"
+        raise InvalidInput(given, MISSING,
+                           f"the option after the command, e.g. "
+                           f"'{PROG} {ctx.invoked_subcommand} {given} ...'",
+                           "given before the command")
 
 
 @app.command("pendulum")
