@@ -102,6 +102,14 @@ def test_missing_section_is_named():
     assert "[swing]" in msg and "missing section" in msg
 
 
+def _error_mentioning(old, new, words):
+    """The error of the example file edited old -> new, checked to contain every word."""
+    msg = _error(_with(old, new))
+    for w in words:
+        assert w in msg, (w, msg)
+    return msg
+
+
 @pytest.mark.parametrize("old, new, words", [
     ('length = "850 mm"', 'length = "-850 mm"', ["pendulum.length", "out of range"]),
     ('length = "850 mm"', 'length = "850 kg"', ["pendulum.length", "not a length"]),
@@ -113,9 +121,7 @@ def test_missing_section_is_named():
     ('gravity = "9.81 m/s^2"', 'gravity = "nan m/s^2"', ["environment.gravity", "finite"]),
 ])
 def test_bad_values_name_field_value_and_allowed(old, new, words):
-    msg = _error(_with(old, new))
-    for w in words:
-        assert w in msg
+    msg = _error_mentioning(old, new, words)
     assert "allowed:" in msg
 
 
@@ -139,9 +145,7 @@ def test_non_utf8_file_is_an_invalid_input(tmp_path):
     ('name = "Test arm"', 'name = """Two\nlines"""', ["name", "control character U+000A"]),
 ])
 def test_design_strings_are_plain_one_line_texts(old, new, words):
-    msg = _error(_with(old, new))
-    for w in words:
-        assert w in msg, (w, msg)
+    _error_mentioning(old, new, words)
 
 
 def test_absent_values_show_no_got():

@@ -117,29 +117,21 @@ def test_bad_quantities_raise_one_line_naming_the_field(text, problem):
     assert "\n" not in msg
 
 
-def test_unknown_unit_suggests_the_close_one():
-    with pytest.raises(InvalidInput, match="did you mean 'kg'"):
-        parse_quantity("3 KG", "mass", "--mass")
-    with pytest.raises(InvalidInput, match="did you mean 'mm'"):
-        parse_quantity("3 mmm", "length", "--length")
-
-
-def test_frequency_is_not_an_angular_speed():
-    # Hz is cycles per second without the 2 pi: ambiguous as an angular speed, refused.
-    with pytest.raises(InvalidInput, match="frequency"):
-        parse_quantity("2 Hz", "angular_velocity", "--angular-speed")
-
-
-def test_percent_is_not_an_angle_and_degrees_not_a_fraction():
-    with pytest.raises(InvalidInput, match="not an angle"):
-        parse_quantity("10 %", "angle", "x")
-    with pytest.raises(InvalidInput, match="not a fraction"):
-        parse_quantity("10 deg", "fraction", "x")
-
-
-def test_bare_temperature_needs_a_unit():
-    with pytest.raises(InvalidInput, match="needs a unit"):
-        parse_quantity("20", "temperature", "x")
+@pytest.mark.parametrize("text, kind, field, match", [
+    # unknown units suggest the close one
+    ("3 KG", "mass", "--mass", "did you mean 'kg'"),
+    ("3 mmm", "length", "--length", "did you mean 'mm'"),
+    # Hz is cycles per second without the 2 pi: ambiguous as an angular speed, refused
+    ("2 Hz", "angular_velocity", "--angular-speed", "frequency"),
+    # percent is not an angle, degrees are not a fraction
+    ("10 %", "angle", "x", "not an angle"),
+    ("10 deg", "fraction", "x", "not a fraction"),
+    # a bare temperature would be read as kelvin: it needs a unit
+    ("20", "temperature", "x", "needs a unit"),
+])
+def test_refused_quantities_say_why(text, kind, field, match):
+    with pytest.raises(InvalidInput, match=match):
+        parse_quantity(text, kind, field)
 
 
 def test_bounds_are_checked_and_reported_with_the_text():
