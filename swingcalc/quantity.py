@@ -77,12 +77,38 @@ KINDS = {
                  ("s", "second", "seconds"), ("s", "ms", "min", "h", "day")),
     "temperature": Kind("temperature", "K", "a temperature", "'20 degC', '293.15 K', '68 degF'",
                         ("K", "kelvin"), ("degC", "K", "degF")),
+    "temperature_difference": Kind(
+        "temperature_difference", "K", "a temperature difference", "'5 K', '5 degC' or '9 degF'",
+        ("K", "kelvin"), ("K", "degC", "degF")),
+    "density": Kind("density", "kg/m^3", "a density", "'8.4 g/cm^3', '7850 kg/m^3'",
+                    ("kg/m^3", "kg/m**3", "kg m^-3"), ("kg/m^3", "g/cm^3", "lb/in^3", "lb/ft^3")),
+    "linear_density": Kind("linear_density", "kg/m", "a mass per length",
+                           "'0.9 kg/m', '0.6 lb/ft'", ("kg/m",), ("kg/m", "g/m", "lb/ft")),
+    "pressure": Kind("pressure", "Pa", "a pressure", "'101.3 kPa', '1013 hPa', '29.9 inHg'",
+                     ("Pa", "pascal"), ("Pa", "hPa", "kPa", "bar", "mbar", "psi", "inHg")),
+    "torque": Kind("torque", "N*m", "a torque", "'0.02 N m', '0.2 lbf ft'",
+                   ("N*m", "N m", "N.m", "N·m"), ("N*m", "N*mm", "lbf*ft", "lbf*in")),
+    "energy": Kind("energy", "J", "an energy", "'300 J', '220 ft lbf'", ("J", "joule"),
+                   ("J", "kJ", "ft*lbf")),
+    "force": Kind("force", "N", "a force", "'2 kN', '450 lbf'", ("N", "newton"),
+                  ("N", "kN", "lbf", "kgf")),
+    "inertia": Kind("inertia", "kg*m^2", "a moment of inertia", "'0.35 kg m^2'",
+                    ("kg*m^2", "kg m^2", "kg*m**2"), ("kg*m^2", "kg*cm^2", "lb*ft^2", "lb*in^2")),
+    "volume": Kind("volume", "m^3", "a volume", "'120 cm^3', '0.5 L'", ("m^3", "m**3"),
+                   ("m^3", "cm^3", "L", "mm^3", "in^3")),
+    "expansion": Kind("expansion", "1/K", "a thermal expansion coefficient",
+                      "'11.5e-6 /K', '11.5 ppm/K'", ("1/K", "/K", "K^-1"),
+                      ("1/K", "ppm/K", "1/degF")),
+    "viscous": Kind("viscous", "N*m*s", "a viscous damping coefficient (torque per angular speed)",
+                    "'0.002 N m s'", ("N*m*s", "N m s"), ("N*m*s",)),
     "fraction": Kind("fraction", "dimensionless", "a fraction",
                      "'0.5 %', '200 ppm' or a bare number such as 0.005",
                      ("",), ("%", "percent", "ppm")),
 }
 
 _DEGREE_SPELLINGS = ("deg", "degree", "degrees", "°")
+_DIFFERENCE_SCALES = {"degC": 1.0, "°C": 1.0, "delta_degC": 1.0, "degF": 5.0 / 9.0,
+                      "°F": 5.0 / 9.0, "delta_degF": 5.0 / 9.0}
 _REGISTRY = None
 
 
@@ -230,6 +256,11 @@ def _to_si(mags: np.ndarray, unit: str, k: Kind, field: str, original: str,
         return mags
     if k.name == "angle" and unit in _DEGREE_SPELLINGS:
         return np.radians(mags)
+    if k.name == "temperature_difference" and unit in _DIFFERENCE_SCALES:
+        # A difference in degC is one in K; pint would read "5 degC" as 278.15 K.
+        return mags * _DIFFERENCE_SCALES[unit]
+    if k.name == "expansion" and unit == "/K":
+        return mags
     if unit in k.identity:
         return mags
     if k.name == "fraction" and unit in ("%", "percent"):

@@ -1,0 +1,255 @@
+"""A body in its place: gravity, the air and temperature acting on a compound pendulum.
+
+:func:`compound_pendulum` reduces a :class:`~swingcalc.body.Body` in an environment to the
+numbers every later calculation uses: the restoring moment (less the air's buoyancy), the
+inertia about the pivot (plus the air dragged along), the quadratic-drag coefficient of
+its parts, and the small-angle period, with the shift from each air effect shown apart.
+:func:`thermal_rate` gives the rate change with temperature and, for a design of two or
+more materials, how well it is compensated.
+
+Method notes: ``docs/methods/compound-pendulum.md``, ``docs/methods/air.md``,
+``docs/methods/temperature.md``.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from ._validate import positive_scalar, real_scalar
+from .body import Body, scaled_for_temperature
+from .constants import SECONDS_PER_DAY, STANDARD_GRAVITY
+from .errors import InvalidInput
+
+__all__ = ["AirTerms", "CompoundPendulum", "ThermalRate", "compound_pendulum", "air_terms",
+           "thermal_rate"]
+
+
+@dataclass(frozen=True)
+class AirTerms:
+    """What the air does to a body: SI values."""
+
+    air_density_kg_m3: float
+    buoyancy_moment_N_m: float       # reduction of the restoring moment (rho V d g summed)
+    added_inertia_kg_m2: float       # air carried along, about the pivot
+    drag_coefficient_N_m_s2: float   # D in the drag torque -D omega |omega|
+    per_part: tuple                  # (name, buoyancy moment, added inertia, D) per part
+
+    def to_dict(self) -> dict:
+        d = dict(self.__dict__)
+        d["per_part"] = [dict(zip(("part", "buoyancy_moment_N_m", "added_inertia_kg_m2",
+                                   "drag_coefficient_N_m_s2"), row)) for row in self.per_part]
+        return d
+
+
+def air_terms(body: Body, air_density: float, gravity: float = STANDARD_GRAVITY) -> AirTerms:
+    """Buoyancy, added inertia and quadratic drag of each part of ``body`` in air.
+
+    Parameters
+    ----------
+    body : Body
+    air_density : float
+        [kg/m^3]; 0 for a vacuum.
+    gravity : float
+        [m/s^2], for the buoyancy.
+
+    Notes
+    -----
+    Buoyancy: the displaced air's weight acts up at each part's centroid, so the restoring
+    moment loses rho g V_i h_i, with h_i the part's distance from the pivot along the line
+    through the centre of mass (the hanging direction). Added mass: a part moving at
+    omega r_i carries an added mass C_a rho V_i (or a given added mass for thin shapes),
+    which adds C_a rho V_i (r_i^2 + l_i^2/12) to the inertia, l_i its length along the arm
+    when it moves sideways along its length. Drag: a compact part meets the air with
+    0.5 rho C_d A_i (omega r_i)^2 at the arm r_i, a torque D_i omega |omega| with
+    D_i = 0.5 rho C_d A_i r_i^3; a part spread along the arm integrates its width:
+    D_i = 0.5 rho C_d w_i int |s|^3 ds. The coefficients and their sources:
+    :mod:`swingcalc.fluids`.
+    """
+    rho = real_scalar(air_density, "air density", "a finite density >= 0 [kg/m^3]", low=0.0,
+                      high=50.0)
+    cos_t, sin_t = math.cos(body.hang_tilt_rad), math.sin(body.hang_tilt_rad)
+    rows = []
+    for p in body.parts:
+        s, u = p.centre_along_m, p.centre_across_m
+        r2 = s * s + u * u
+        c = _air_coefficients(p)
+        moment_arm = s * cos_t + u * sin_t
+        spread = c.spread_along_arm
+        length = p.extent_along_m if spread else 0.0
+        added = rho * c.added_volume_m3 * (r2 + length * length / 12.0)
+        if spread and length > 0.0:
+            lo, hi = s - 0.5 * length, s + 0.5 * length
+            moment4 = (_abs_cube_integral(lo, hi))
+            drag = 0.5 * rho * c.drag_coefficient * p.frontal_width_m * moment4
+        else:
+            drag = 0.5 * rho * c.drag_coefficient * p.frontal_area_m2 * math.sqrt(r2) ** 3
+        rows.append((p.name, rho * gravity * p.volume_m3 * moment_arm, added, drag))
+    return AirTerms(air_density_kg_m3=rho,
+                    buoyancy_moment_N_m=sum(r[1] for r in rows),
+                    added_inertia_kg_m2=sum(r[2] for r in rows),
+                    drag_coefficient_N_m_s2=sum(r[3] for r in rows),
+                    per_part=tuple(rows))
+
+
+def _abs_cube_integral(lo: float, hi: float) -> float:
+    """int_lo^hi |s|^3 ds."""
+    def f(x):
+        return math.copysign(x ** 4, x) / 4.0
+    return f(hi) - f(lo)
+
+
+@dataclass(frozen=True)
+class CompoundPendulum:
+    """A body swinging in its environment, reduced to the numbers the swing needs.
+
+    ``restoring_moment_N_m`` is M in the equation I theta'' = -M sin(theta): m g d less
+    the buoyancy; ``inertia_kg_m2`` includes the air carried along. The period shifts
+    are relative to the same body in a vacuum; a rate is in seconds per day, positive
+    when the clock gains.
+    """
+
+    body: Body
+    gravity_m_s2: float
+    air: AirTerms
+    restoring_moment_N_m: float
+    inertia_kg_m2: float
+    natural_angular_frequency_rad_s: float
+    small_angle_period_s: float
+    vacuum_small_angle_period_s: float
+    buoyancy_period_shift_rel: float
+    added_mass_period_shift_rel: float
+    buoyancy_rate_s_per_day: float
+    added_mass_rate_s_per_day: float
+
+    @property
+    def mass_kg(self) -> float:
+        return self.body.mass_kg
+
+    @property
+    def com_distance_m(self) -> float:
+        return self.body.com_distance_m
+
+    def to_dict(self) -> dict:
+        d = {k: v for k, v in self.__dict__.items() if k not in ("body", "air")}
+        d["air"] = self.air.to_dict()
+        return d
+
+
+def compound_pendulum(body: Body, gravity: float = STANDARD_GRAVITY,
+                      air_density: float = 0.0) -> CompoundPendulum:
+    """The small-angle model of ``body`` at ``gravity`` [m/s^2] in air of ``air_density``
+    [kg/m^3] (0: a vacuum).
+
+    Notes
+    -----
+    T0 = 2 pi sqrt(I_eff / M), I_eff = I_O + added inertia, M = g (m d - sum rho V_i h_i).
+    Each air effect's shift is the ratio with only that effect applied:
+    sqrt(M_vac / M) - 1 for buoyancy, sqrt(I_eff / I_O) - 1 for the added mass; a rate
+    change is -86400 shift / (1 + shift) s/day (the clock loses what its period gains).
+
+    Examples
+    --------
+    >>> from swingcalc.body import assemble, point_bob
+    >>> p = compound_pendulum(assemble(*point_bob(0.25 / math.pi**2 * 9.80665, 1.0)))
+    >>> round(p.small_angle_period_s, 12)    # a 1 s pendulum at standard gravity
+    1.0
+    """
+    g = positive_scalar(gravity, "gravity", "m/s^2")
+    air = air_terms(body, air_density, g)
+    m_vac = body.mass_kg * g * body.com_distance_m
+    buoy = air.buoyancy_moment_N_m
+    moment = m_vac - buoy
+    if not moment > 0.0:
+        raise InvalidInput("air density", air.air_density_kg_m3,
+                           "a fluid lighter than the body",
+                           "the buoyancy cancels the weight's restoring moment")
+    inertia = body.inertia_pivot_kg_m2 + air.added_inertia_kg_m2
+    t_vac = 2.0 * math.pi * math.sqrt(body.inertia_pivot_kg_m2 / m_vac)
+    shift_b = math.sqrt(m_vac / moment) - 1.0
+    shift_a = math.sqrt(inertia / body.inertia_pivot_kg_m2) - 1.0
+    omega0 = math.sqrt(moment / inertia)
+    return CompoundPendulum(
+        body=body, gravity_m_s2=g, air=air, restoring_moment_N_m=moment,
+        inertia_kg_m2=inertia, natural_angular_frequency_rad_s=omega0,
+        small_angle_period_s=2.0 * math.pi / omega0, vacuum_small_angle_period_s=t_vac,
+        buoyancy_period_shift_rel=shift_b, added_mass_period_shift_rel=shift_a,
+        buoyancy_rate_s_per_day=_rate(shift_b), added_mass_rate_s_per_day=_rate(shift_a))
+
+
+def _rate(shift: float) -> float:
+    return -SECONDS_PER_DAY * shift / (1.0 + shift)
+
+
+@dataclass(frozen=True)
+class ThermalRate:
+    """Rate change of a clock with temperature [s/day per K], positive when it gains as
+    it warms; ``plain_rate`` is the same body made all of the arm's material, and
+    ``compensation`` = 1 - rate / plain_rate (1 = fully compensated, 0 = not at all)."""
+
+    rate_s_per_day_per_K: float
+    plain_rate_s_per_day_per_K: float
+    compensation: float | None
+    period_change_rel_per_K: float
+
+    def to_dict(self) -> dict:
+        return dict(self.__dict__)
+
+
+def thermal_rate(pendulum: CompoundPendulum) -> ThermalRate:
+    """Rate change per kelvin of ``pendulum`` [s/day/K].
+
+    Notes
+    -----
+    The body is rebuilt 0.5 K above and below the temperature its sizes were given at
+    (:func:`swingcalc.body.scaled_for_temperature`: each part grows by its own
+    coefficient about its mounting point, which moves with the arm), and the rate change
+    is the central difference of the small-angle period: -86400 (dT/dtheta)/T s/day/K.
+    Its truncation error is O((alpha dT)^2) ~ 1e-10 relative of the rate, far below the
+    spread of published expansion coefficients. Amplitude is held fixed: the circular error does not change with temperature.
+    A simple pendulum gives -alpha/2 * 86400 s/day/K.
+    """
+    body = pendulum.body
+    parts = body.inputs
+    rho = pendulum.air.air_density_kg_m3
+    g = pendulum.gravity_m_s2
+
+    def period(delta, plain=False):
+        src = parts
+        if plain:
+            from dataclasses import replace
+
+            src = tuple(replace(p, expansion=body.arm_expansion_per_K) for p in parts)
+        b = scaled_for_temperature(body, delta, src)
+        return compound_pendulum(b, g, rho).small_angle_period_s
+
+    h = 0.5
+    t0 = pendulum.small_angle_period_s
+    dt = (period(h) - period(-h)) / (2.0 * h) / t0
+    dplain = (period(h, True) - period(-h, True)) / (2.0 * h) / t0
+    rate = -SECONDS_PER_DAY * dt
+    plain = -SECONDS_PER_DAY * dplain
+    comp = None if plain == 0.0 else 1.0 - rate / plain
+    return ThermalRate(rate_s_per_day_per_K=rate, plain_rate_s_per_day_per_K=plain,
+                       compensation=comp, period_change_rel_per_K=dt)
+
+
+class _AirCoefficients:
+    __slots__ = ("added_volume_m3", "drag_coefficient", "spread_along_arm")
+
+    def __init__(self, added_volume_m3, drag_coefficient, spread_along_arm):
+        self.added_volume_m3 = added_volume_m3
+        self.drag_coefficient = drag_coefficient
+        self.spread_along_arm = spread_along_arm
+
+
+def _air_coefficients(p) -> _AirCoefficients:
+    """Added volume (added mass / air density) [m^3], drag coefficient and whether the part
+    meets the air along its length, for a part moving sideways (along u)."""
+    # TEMPORARY placeholder table until swingcalc.fluids lands.
+    v = p.volume_m3
+    if p.shape in ("rod", "tube", "flat_bar"):
+        return _AirCoefficients(v, 1.2, True)
+    if p.shape == "sphere":
+        return _AirCoefficients(0.5 * v, 0.47, False)
+    return _AirCoefficients(0.0, 0.0, False)
