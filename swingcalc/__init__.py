@@ -6,7 +6,31 @@ formatting live at the boundary (``swingcalc.quantity``, ``swingcalc.designfile`
 """
 
 from .constants import SECONDS_PER_DAY, STANDARD_GRAVITY
+from .environment import (
+    Air,
+    added_mass_rate_shift,
+    air,
+    air_density,
+    air_viscosity,
+    buoyancy_rate_shift,
+    fluid_period_factor,
+    fluid_rate_shift,
+    isa_pressure,
+    isa_temperature,
+    normal_gravity,
+    rate_change_per_kelvin,
+    saturation_vapour_pressure,
+)
 from .errors import InvalidInput, SolverFailure, SwingcalcError
+from .fluids import (
+    added_mass,
+    added_mass_coefficient,
+    cylinder_drag_coefficient,
+    drag_coefficient,
+    friction_drag_coefficient,
+    sphere_drag_coefficient,
+    spheroid_added_mass_coefficient,
+)
 from .linear import (
     SmallAngleCheck,
     clock_rate_error,
@@ -21,6 +45,7 @@ from .linear import (
     small_angle_check,
     small_angle_period_error,
 )
+from .materials import MATERIALS, Material, material
 from .pendulum import SimplePendulum, simple_pendulum, slack_angle
 from .swing import (
     Regime,
@@ -86,4 +111,30 @@ __all__ = [
     "SimplePendulum",
     "simple_pendulum",
     "slack_angle",
+    # environment
+    "normal_gravity",
+    "isa_temperature",
+    "isa_pressure",
+    "saturation_vapour_pressure",
+    "air_density",
+    "air_viscosity",
+    "Air",
+    "air",
+    "fluid_period_factor",
+    "buoyancy_rate_shift",
+    "added_mass_rate_shift",
+    "fluid_rate_shift",
+    "rate_change_per_kelvin",
+    # materials
+    "Material",
+    "MATERIALS",
+    "material",
+    # air-flow coefficients of part shapes
+    "added_mass_coefficient",
+    "spheroid_added_mass_coefficient",
+    "added_mass",
+    "drag_coefficient",
+    "sphere_drag_coefficient",
+    "cylinder_drag_coefficient",
+    "friction_drag_coefficient",
 ]
