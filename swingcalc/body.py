@@ -415,7 +415,10 @@ def assemble(parts, suspension: Suspension | None = None,
                            "a centre of mass below the pivot (positive along the arm)",
                            f"the centre of mass is at {s:.6g} m along the arm, {u:.6g} m "
                            "across: the body does not hang below the pivot")
-    i_com = max(inertia - mass * d * d, 0.0)
+    # About the centre of mass directly (I_O - m d^2 would leave rounding for a point bob).
+    i_com = sum(p.own_inertia_kg_m2 + p.mass_kg * ((p.centre_along_m - s) ** 2
+                                                   + (p.centre_across_m - u) ** 2)
+                for p in resolved)
     l_eq = inertia / (mass * d)
     if arm_expansion is None:
         arm_expansion = _default_arm_expansion(resolved)

@@ -16,13 +16,16 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from ._validate import positive_scalar, real_scalar
+from ._validate import amplitude_scalar, positive_scalar, real_scalar
 from .body import Body, scaled_for_temperature
 from .constants import SECONDS_PER_DAY, STANDARD_GRAVITY
 from .errors import InvalidInput
 
-__all__ = ["AirTerms", "CompoundPendulum", "ThermalRate", "compound_pendulum", "air_terms",
-           "thermal_rate"]
+#: Viscosity of air used when none is given [Pa s]: ISA sea level (ISO 2533).
+AIR_VISCOSITY = 1.7894e-5
+
+__all__ = ["AIR_VISCOSITY", "AirTerms", "CompoundPendulum", "ThermalRate", "compound_pendulum",
+           "air_terms", "rebuilt", "thermal_rate"]
 
 
 @dataclass(frozen=True)
@@ -42,7 +45,9 @@ class AirTerms:
         return d
 
 
-def air_terms(body: Body, air_density: float, gravity: float = STANDARD_GRAVITY) -> AirTerms:
+def air_terms(body: Body, air_density: float, gravity: float = STANDARD_GRAVITY,
+              air_viscosity: float = AIR_VISCOSITY, angular_speed: float | None = None
+              ) -> AirTerms:
     """Buoyancy, added inertia and quadratic drag of each part of ``body`` in air.
 
     Parameters
@@ -52,6 +57,11 @@ def air_terms(body: Body, air_density: float, gravity: float = STANDARD_GRAVITY)
         [kg/m^3]; 0 for a vacuum.
     gravity : float
         [m/s^2], for the buoyancy.
+    air_viscosity : float
+        [Pa s], for the skin friction of parts that move edgewise.
+    angular_speed : float, optional
+        Peak angular speed [rad/s] of the swing the drag is for: it sets the Reynolds
+        number of the skin friction (default Re = 1e4 when not given).
 
     Notes
     -----
@@ -68,22 +78,22 @@ def air_terms(body: Body, air_density: float, gravity: float = STANDARD_GRAVITY)
     """
     rho = real_scalar(air_density, "air density", "a finite density >= 0 [kg/m^3]", low=0.0,
                       high=50.0)
+    mu = real_scalar(air_viscosity, "air viscosity", "a finite viscosity > 0 [Pa s]",
+                     low=1e-7, high=1e-3)
     cos_t, sin_t = math.cos(body.hang_tilt_rad), math.sin(body.hang_tilt_rad)
     rows = []
     for p in body.parts:
         s, u = p.centre_along_m, p.centre_across_m
         r2 = s * s + u * u
-        c = _air_coefficients(p)
-        moment_arm = s * cos_t + u * sin_t
-        spread = c.spread_along_arm
-        length = p.extent_along_m if spread else 0.0
+        c = _air_model(p, rho, mu, angular_speed)
+        length = p.extent_along_m if c.spread_along_arm else 0.0
         added = rho * c.added_volume_m3 * (r2 + length * length / 12.0)
-        if spread and length > 0.0:
+        if c.spread_along_arm:
             lo, hi = s - 0.5 * length, s + 0.5 * length
-            moment4 = (_abs_cube_integral(lo, hi))
-            drag = 0.5 * rho * c.drag_coefficient * p.frontal_width_m * moment4
+            drag = 0.5 * rho * c.drag_coefficient * c.drag_area_m2 * _abs_cube_integral(lo, hi)
         else:
-            drag = 0.5 * rho * c.drag_coefficient * p.frontal_area_m2 * math.sqrt(r2) ** 3
+            drag = 0.5 * rho * c.drag_coefficient * c.drag_area_m2 * math.sqrt(r2) ** 3
+        moment_arm = s * cos_t + u * sin_t
         rows.append((p.name, rho * gravity * p.volume_m3 * moment_arm, added, drag))
     return AirTerms(air_density_kg_m3=rho,
                     buoyancy_moment_N_m=sum(r[1] for r in rows),
@@ -112,6 +122,8 @@ class CompoundPendulum:
     body: Body
     gravity_m_s2: float
     air: AirTerms
+    air_viscosity_Pa_s: float
+    drag_amplitude_rad: float | None
     restoring_moment_N_m: float
     inertia_kg_m2: float
     natural_angular_frequency_rad_s: float
@@ -137,9 +149,13 @@ class CompoundPendulum:
 
 
 def compound_pendulum(body: Body, gravity: float = STANDARD_GRAVITY,
-                      air_density: float = 0.0) -> CompoundPendulum:
+                      air_density: float = 0.0, air_viscosity: float = AIR_VISCOSITY,
+                      amplitude: float | None = None) -> CompoundPendulum:
     """The small-angle model of ``body`` at ``gravity`` [m/s^2] in air of ``air_density``
-    [kg/m^3] (0: a vacuum).
+    [kg/m^3] (0: a vacuum) and ``air_viscosity`` [Pa s].
+
+    ``amplitude`` [rad], when given, is the swing the drag coefficient is evaluated for
+    (it sets the skin friction's Reynolds number; see :func:`air_terms`).
 
     Notes
     -----
@@ -156,10 +172,13 @@ def compound_pendulum(body: Body, gravity: float = STANDARD_GRAVITY,
     1.0
     """
     g = positive_scalar(gravity, "gravity", "m/s^2")
-    air = air_terms(body, air_density, g)
     m_vac = body.mass_kg * g * body.com_distance_m
-    buoy = air.buoyancy_moment_N_m
-    moment = m_vac - buoy
+    speed = None
+    if amplitude is not None:
+        speed = 2.0 * math.sqrt(m_vac / body.inertia_pivot_kg_m2) * math.sin(
+            0.5 * amplitude_scalar(amplitude))
+    air = air_terms(body, air_density, g, air_viscosity, speed)
+    moment = m_vac - air.buoyancy_moment_N_m
     if not moment > 0.0:
         raise InvalidInput("air density", air.air_density_kg_m3,
                            "a fluid lighter than the body",
@@ -170,11 +189,21 @@ def compound_pendulum(body: Body, gravity: float = STANDARD_GRAVITY,
     shift_a = math.sqrt(inertia / body.inertia_pivot_kg_m2) - 1.0
     omega0 = math.sqrt(moment / inertia)
     return CompoundPendulum(
-        body=body, gravity_m_s2=g, air=air, restoring_moment_N_m=moment,
+        body=body, gravity_m_s2=g, air=air, air_viscosity_Pa_s=air_viscosity,
+        drag_amplitude_rad=amplitude, restoring_moment_N_m=moment,
         inertia_kg_m2=inertia, natural_angular_frequency_rad_s=omega0,
         small_angle_period_s=2.0 * math.pi / omega0, vacuum_small_angle_period_s=t_vac,
         buoyancy_period_shift_rel=shift_b, added_mass_period_shift_rel=shift_a,
         buoyancy_rate_s_per_day=_rate(shift_b), added_mass_rate_s_per_day=_rate(shift_a))
+
+
+def rebuilt(pend: CompoundPendulum, body: Body, gravity: float | None = None
+            ) -> CompoundPendulum:
+    """``pend``'s environment applied to another body (a changed part, another
+    temperature), optionally at another ``gravity`` [m/s^2]."""
+    return compound_pendulum(body, pend.gravity_m_s2 if gravity is None else gravity,
+                             pend.air.air_density_kg_m3, pend.air_viscosity_Pa_s,
+                             pend.drag_amplitude_rad)
 
 
 def _rate(shift: float) -> float:
@@ -211,8 +240,6 @@ def thermal_rate(pendulum: CompoundPendulum) -> ThermalRate:
     """
     body = pendulum.body
     parts = body.inputs
-    rho = pendulum.air.air_density_kg_m3
-    g = pendulum.gravity_m_s2
 
     def period(delta, plain=False):
         src = parts
@@ -221,7 +248,7 @@ def thermal_rate(pendulum: CompoundPendulum) -> ThermalRate:
 
             src = tuple(replace(p, expansion=body.arm_expansion_per_K) for p in parts)
         b = scaled_for_temperature(body, delta, src)
-        return compound_pendulum(b, g, rho).small_angle_period_s
+        return rebuilt(pendulum, b).small_angle_period_s
 
     h = 0.5
     t0 = pendulum.small_angle_period_s
@@ -234,22 +261,89 @@ def thermal_rate(pendulum: CompoundPendulum) -> ThermalRate:
                        compensation=comp, period_change_rel_per_K=dt)
 
 
-class _AirCoefficients:
-    __slots__ = ("added_volume_m3", "drag_coefficient", "spread_along_arm")
+@dataclass(frozen=True)
+class _AirModel:
+    added_volume_m3: float      # added mass / fluid density
+    drag_coefficient: float
+    drag_area_m2: float         # reference area (compact part) or width per length (spread)
+    spread_along_arm: bool
 
-    def __init__(self, added_volume_m3, drag_coefficient, spread_along_arm):
-        self.added_volume_m3 = added_volume_m3
-        self.drag_coefficient = drag_coefficient
-        self.spread_along_arm = spread_along_arm
+
+_EDGE_RE = (1e3, 5e5)           # the laminar skin-friction range of fluids.friction_drag_...
+_DEFAULT_RE = 1e4
 
 
-def _air_coefficients(p) -> _AirCoefficients:
-    """Added volume (added mass / air density) [m^3], drag coefficient and whether the part
-    meets the air along its length, for a part moving sideways (along u)."""
-    # TEMPORARY placeholder table until swingcalc.fluids lands.
-    v = p.volume_m3
-    if p.shape in ("rod", "tube", "flat_bar"):
-        return _AirCoefficients(v, 1.2, True)
+def _reynolds(length, speed, rho, mu):
+    """Reynolds number for skin friction, kept inside the laminar law's range."""
+    if speed is None or rho == 0.0:
+        return _DEFAULT_RE
+    re = rho * speed * length / mu
+    return min(max(re, _EDGE_RE[0]), _EDGE_RE[1])
+
+
+def _air_model(p, rho, mu, angular_speed) -> _AirModel:
+    """How one part meets the air when it moves sideways (along u): its added volume,
+    drag coefficient and reference area, from :mod:`swingcalc.fluids`.
+
+    Parts moving edgewise (a lens bob seen face-on, a plate in the swing plane) have only
+    skin friction, on one face's area, at the Reynolds number of the part's peak speed."""
+    from . import fluids as f
+
+    sz, o = p.size_m, p.orientation
+    speed = None if angular_speed is None else angular_speed * math.hypot(
+        p.centre_along_m, p.centre_across_m)
+
+    def friction(area, length):
+        return _AirModel(0.0, f.friction_drag_coefficient(_reynolds(length, speed, rho, mu)),
+                         area, False)
+
+    if p.shape in ("rod", "tube"):
+        d = sz.get("diameter", sz.get("outer_diameter"))
+        length = sz["length"]
+        return _AirModel(f.added_mass("cylinder", "across", 1.0, radius=0.5 * d, length=length),
+                         f.drag_coefficient("cylinder", "across",
+                                            aspect_ratio=max(length / d, 1.0)), d, True)
+    if p.shape == "flat_bar":
+        re = _reynolds(sz["width"], speed, rho, mu)
+        return _AirModel(0.0, f.friction_drag_coefficient(re), sz["width"], True)
+    if p.shape == "plate":
+        w, h = sz["width"], sz["height"]
+        if o == "swing":
+            return _AirModel(f.added_mass("plate", "broadside", 1.0, length=h, width=w),
+                             f.drag_coefficient("plate", "broadside",
+                                                aspect_ratio=max(w, h) / min(w, h)),
+                             w * h, False)
+        return friction(w * h, w)
+    if p.shape == "disc":
+        r = 0.5 * sz["diameter"]
+        if o == "swing":
+            return _AirModel(f.added_mass("disc", "broadside", 1.0, radius=r),
+                             f.drag_coefficient("disc", "broadside"), math.pi * r * r, False)
+        return friction(math.pi * r * r, 2.0 * r)
+    if p.shape == "cylinder":
+        r, length = 0.5 * sz["diameter"], sz["length"]
+        if o == "swing":
+            return _AirModel(f.added_mass("cylinder", "along", 1.0, radius=r),
+                             f.drag_coefficient("cylinder", "along",
+                                                aspect_ratio=min(max(length / (2 * r), 0.5),
+                                                                 8.0)),
+                             math.pi * r * r, False)
+        return _AirModel(f.added_mass("cylinder", "across", 1.0, radius=r, length=length),
+                         f.drag_coefficient("cylinder", "across",
+                                            aspect_ratio=max(length / (2 * r), 1.0)),
+                         2.0 * r * length, False)
     if p.shape == "sphere":
-        return _AirCoefficients(0.5 * v, 0.47, False)
-    return _AirCoefficients(0.0, 0.0, False)
+        r = 0.5 * sz["diameter"]
+        return _AirModel(f.added_mass("sphere", None, 1.0, radius=r),
+                         f.drag_coefficient("sphere"), math.pi * r * r, False)
+    if p.shape == "lens":
+        r, thick = 0.5 * sz["diameter"], sz["thickness"]
+        if o == "swing":
+            return _AirModel(f.added_mass("lens", "broadside", 1.0, radius=r, thickness=thick),
+                             f.drag_coefficient("lens", "broadside"), math.pi * r * r, False)
+        m = _AirModel(f.added_mass("lens", "edgewise", 1.0, radius=r, thickness=thick),
+                      0.0, math.pi * r * r, False)
+        return _AirModel(m.added_volume_m3,
+                         f.friction_drag_coefficient(_reynolds(2 * r, speed, rho, mu)),
+                         m.drag_area_m2, False)
+    return _AirModel(0.0, 0.0, 0.0, False)      # point, custom, suspension line

@@ -58,13 +58,13 @@ from functools import cached_property
 from pathlib import Path
 
 from .body import (MOUNTS, ORIENTATIONS, PIVOT_KINDS, SHAPE_SIZES, SUSPENSION_KINDS, Part,
-                   Pivot, Suspension, assemble, scaled_for_temperature)
+                   Pivot, Suspension, assemble, point_bob, scaled_for_temperature)
 from .constants import STANDARD_GRAVITY
 from .errors import MISSING, InvalidInput
 from .quantity import parse_quantity, parse_values, suggest
 
 __all__ = ["CONTEXTS", "GRAVITY_ALLOWED", "Design", "Environment", "Impact", "Rating",
-           "Tolerance", "load_design", "parse_design", "parse_gravity"]
+           "Tolerance", "load_design", "parse_design", "parse_gravity", "point_design"]
 
 #: What the swinging part is for; it selects the safety cautions shown with loads.
 CONTEXTS = ("clock", "ride", "gate", "impact", "damper", "load", "general")
@@ -143,6 +143,7 @@ class Environment:
     relative_humidity: float = 0.0
     air: bool = False
     air_density_kg_m3: float = 0.0
+    air_viscosity_Pa_s: float = 1.7894e-5     # ISA sea level (ISO 2533)
 
     def to_dict(self) -> dict:
         return dict(self.__dict__)
@@ -225,7 +226,21 @@ class Design:
         from .compound import compound_pendulum
 
         env = self.environment
-        return compound_pendulum(self.body, env.gravity_m_s2, env.air_density_kg_m3)
+        return compound_pendulum(self.body, env.gravity_m_s2, env.air_density_kg_m3,
+                                 env.air_viscosity_Pa_s, self.amplitudes_rad[0])
+
+    def with_changes(self, amplitudes=None, gravity=None, gravity_given: str = "") -> "Design":
+        """A copy with other working amplitudes [rad] and/or another gravity [m/s^2]."""
+        from dataclasses import replace
+
+        changes = {}
+        if amplitudes is not None:
+            changes["amplitudes_rad"] = tuple(amplitudes)
+        if gravity is not None:
+            changes["environment"] = replace(self.environment, gravity_m_s2=gravity,
+                                             gravity_given=gravity_given or str(gravity),
+                                             latitude_rad=None)
+        return replace(self, **changes)
 
     def points_dict(self) -> dict:
         return {name: (s, u) for name, s, u in self.points}
@@ -473,6 +488,17 @@ def parse_design(text: str, source: str = "<design>") -> Design:
     return design
 
 
+def point_design(length: float, mass: float = 1.0, suspension: str = "rigid",
+                 amplitudes=(math.radians(10.0),), name: str = "pendulum from options"
+                 ) -> Design:
+    """A design for a point bob of ``mass`` [kg] at ``length`` [m] on a light rigid or
+    flexible suspension, in a vacuum at standard gravity (what ``[pendulum]`` gives)."""
+    parts, susp = point_bob(length, mass, suspension)
+    return Design(name=name, revision="", context="general", parts=parts, suspension=susp,
+                  pivot=Pivot(), amplitudes_rad=tuple(amplitudes),
+                  environment=Environment(), shorthand=True)
+
+
 def load_design(path, source: str | None = None) -> Design:
     """Read and validate a design file (see :func:`parse_design`)."""
     p = Path(path)
@@ -502,10 +528,7 @@ def _shorthand(r: _Reader, pend: dict):
     length = r.quantity("pendulum", pend, "length",
                         "a length > 0 from pivot to bob centre, e.g. \"994 mm\"", **_POSITIVE)
     mass = r.quantity("pendulum", pend, "bob_mass", "a mass > 0, e.g. \"1.2 kg\"", **_POSITIVE)
-    kind = r.word("pendulum", pend, "suspension", SUSPENSIONS)
-    susp = (Suspension("rigid") if kind == "rigid"
-            else Suspension("rope", length=length, mass_per_length=0.0))
-    return (Part("bob", "point", position=length, mass=mass),), susp
+    return point_bob(length, mass, r.word("pendulum", pend, "suspension", SUSPENSIONS))
 
 
 def _suspension(r: _Reader, t: dict) -> Suspension:
@@ -748,6 +771,8 @@ def _environment(r: _Reader, t: dict) -> Environment:
     pressure = r.quantity(s, t, "pressure", "an air pressure in [10, 120] kPa",
                           default=None, minimum=10e3, maximum=120e3)
     air = r.flag(s, t, "air", default=True)
+    from .environment import air_viscosity
+
     density = 0.0
     if air:
         from .environment import air_density, isa_pressure
@@ -755,7 +780,7 @@ def _environment(r: _Reader, t: dict) -> Environment:
         p = pressure if pressure is not None else isa_pressure(elevation)
         density = air_density(temperature, p, humidity)
         pressure = p
-    return Environment(gravity_m_s2=g, gravity_given=given, latitude_rad=latitude,
+    return Environment(air_viscosity_Pa_s=air_viscosity(temperature),gravity_m_s2=g, gravity_given=given, latitude_rad=latitude,
                        elevation_m=elevation, temperature_K=temperature,
                        reference_temperature_K=reference, pressure_Pa=pressure,
                        relative_humidity=humidity, air=air, air_density_kg_m3=density)
@@ -855,7 +880,6 @@ def _tolerance_paths(data: dict) -> dict:
                 paths[f"part.{name}.{key}"] = kind
         if "material" in t and "density" not in t:
             paths[f"part.{name}.density"] = "density"
-    del env
     return paths
 
 

@@ -134,7 +134,13 @@ def _kinematics(pend: CompoundPendulum, amplitude: float, theta):
 def _reaction(pend: CompoundPendulum, theta, omega2, alpha):
     m, d, g = pend.mass_kg, pend.com_distance_m, pend.gravity_m_s2
     radial = m * (d * omega2 + g * np.cos(theta))            # pull toward the pivot
-    tangential = m * (d * alpha + g * np.sin(theta))
+    # m (d alpha + g sin) with alpha = -(M/I) sin: m sin (g I - d M) / I, and
+    # g I - d M = g (I_G + added inertia) + d (buoyancy moment), free of cancellation
+    # (exactly 0 for a point bob in a vacuum).
+    b = pend.body
+    excess = (g * (b.inertia_com_kg_m2 + pend.air.added_inertia_kg_m2)
+              + d * pend.air.buoyancy_moment_N_m)
+    tangential = m * np.sin(theta) * excess / pend.inertia_kg_m2
     # R = m a_com + m g y_hat, with r_hat = (sin, -cos), t_hat = (cos, sin).
     rx = -radial * np.sin(theta) + tangential * np.cos(theta)
     ry = radial * np.cos(theta) + tangential * np.sin(theta)

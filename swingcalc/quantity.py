@@ -73,6 +73,10 @@ KINDS = {
     "angular_velocity": Kind("angular_velocity", "rad/s", "an angular speed",
                              "'1.5 rad/s', '90 deg/s', '10 rpm' or a bare number in rad/s",
                              ("rad/s", "radian/second"), ("rad/s", "deg/s", "rpm", "rps")),
+    "angular_acceleration": Kind(
+        "angular_acceleration", "rad/s^2", "an angular acceleration",
+        "'3 rad/s^2', '200 deg/s^2' or a bare number in rad/s^2", ("rad/s^2", "rad/s**2"),
+        ("rad/s^2", "deg/s^2")),
     "time": Kind("time", "s", "a time", "'2 s', '500 ms', '1 h' or a bare number in s",
                  ("s", "second", "seconds"), ("s", "ms", "min", "h", "day")),
     "temperature": Kind("temperature", "K", "a temperature", "'20 degC', '293.15 K', '68 degF'",
@@ -228,6 +232,8 @@ def _dimension_ok(k: Kind, probe, root, ureg) -> bool:
         return root.units == ureg.radian
     if k.name == "angular_velocity":
         return root.units == ureg.radian / ureg.second
+    if k.name == "angular_acceleration":
+        return root.units == ureg.radian / ureg.second ** 2
     if k.name == "fraction":
         return root.units == ureg.dimensionless
     return probe.dimensionality == ureg.Quantity(1.0, k.si).dimensionality

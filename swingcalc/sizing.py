@@ -16,7 +16,7 @@ from dataclasses import dataclass, replace
 
 from ._validate import amplitude_scalar, positive_scalar
 from .body import assemble
-from .compound import CompoundPendulum, compound_pendulum
+from .compound import CompoundPendulum, rebuilt
 from .constants import SECONDS_PER_DAY
 from .errors import InvalidInput, SolverFailure
 from .kernels import swing as _k
@@ -121,7 +121,6 @@ def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
     hi = max(2.0 * abs(now), reach) if highest is None else float(highest)
     if not (math.isfinite(lo) and math.isfinite(hi) and lo < hi):
         raise InvalidInput("position range", (lowest, highest), "a finite range low < high [m]")
-    g, rho = pend.gravity_m_s2, pend.air.air_density_kg_m3
     ratio = _ratio(a)
 
     def excess(x):
@@ -129,7 +128,7 @@ def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
             b = _rebuilt(body, part, x)
         except InvalidInput:
             return math.nan
-        return compound_pendulum(b, g, rho).small_angle_period_s * ratio - t
+        return rebuilt(pend, b).small_angle_period_s * ratio - t
 
     from scipy.optimize import brentq
 
@@ -157,7 +156,7 @@ def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
                            f"no position of '{part}' gives it")
     best = min(roots, key=lambda x: abs(x - now))
     b = _rebuilt(body, part, best)
-    period = compound_pendulum(b, g, rho).small_angle_period_s * ratio
+    period = rebuilt(pend, b).small_angle_period_s * ratio
     return PositionSolution(part=part, position_m=best, centre_m=b.part(part).centre_along_m,
                             period_s=period, target_period_s=t, amplitude_rad=a,
                             move_m=best - now,
@@ -281,16 +280,16 @@ def sensitivities(pend: CompoundPendulum, amplitude: float) -> tuple:
     """
     a = amplitude_scalar(amplitude)
     body = pend.body
-    g, rho = pend.gravity_m_s2, pend.air.air_density_kg_m3
+    g = pend.gravity_m_s2
     ratio = _ratio(a)
-    t0 = compound_pendulum(body, g, rho).small_angle_period_s * ratio
+    t0 = pend.small_angle_period_s * ratio
     out = []
 
     def period_with(parts=None, gravity=g, amp=a):
         b = body if parts is None else assemble(parts, body.suspension,
                                                 body.arm_expansion_per_K)
-        return compound_pendulum(b, gravity, rho).small_angle_period_s * (
-            ratio if amp == a else _ratio(amp))
+        p = rebuilt(pend, b, gravity)
+        return p.small_angle_period_s * (ratio if amp == a else _ratio(amp))
 
     def diff(label, unit, x, f):
         h = _REL_STEP * (abs(x) if x else 1e-3)

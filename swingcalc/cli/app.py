@@ -122,13 +122,19 @@ def _options_named(**given):
         raise
 
 
-def _design(design: Path | None, length, mass, suspension, amplitude, gravity):
-    """The design to run: the file, or the bundled default, with the options applied."""
+def _design(design: Path | None, length=None, mass=None, suspension=None, amplitude=None,
+            gravity=None):
+    """The design to run: the file, or the bundled default, with the options applied.
+
+    --length, --mass and --suspension describe a point bob: without a file they make a
+    plain design (1 kg, 10 deg, rigid, standard gravity); with a file they apply only to a
+    ``[pendulum]`` (point bob) design."""
     import dataclasses
 
-    from ..designfile import Design, SimpleBody, load_design, parse_design
+    from ..designfile import load_design, parse_design, point_design
 
-    body_options = any(v is not None for v in (length, mass, suspension))
+    body_options = _given(length=(length, "--length"), mass=(mass, "--mass"),
+                          suspension=(suspension, "--suspension"))
     if design is not None:
         d = load_design(design)
     elif not body_options:
@@ -140,28 +146,29 @@ def _design(design: Path | None, length, mass, suspension, amplitude, gravity):
             raise InvalidInput("--length", MISSING, "a length such as '994 mm' (or a design file)",
                                "required with --mass or --suspension when no design file is "
                                "given")
-        d = Design(name="pendulum from options", revision="", context="general",
-                   body=SimpleBody(length_m=1.0, bob_mass_kg=1.0, suspension="rigid"),
-                   amplitudes_rad=(0.17453292519943295,),   # 10 deg
-                   gravity_m_s2=opt.gravity(None)[0], gravity_given="standard", source="")
-    body = d.body
-    if length is not None:
-        body = dataclasses.replace(body, length_m=opt.length(length))
-    if mass is not None:
-        body = dataclasses.replace(body, bob_mass_kg=opt.mass(mass))
-    if suspension is not None:
-        body = dataclasses.replace(body, suspension=opt.suspension(suspension))
-    changes = {"body": body}
-    if amplitude is not None:
-        changes["amplitudes_rad"] = tuple(opt.amplitudes(amplitude))
-    if gravity is not None:
-        g, given = opt.gravity(gravity)
-        changes.update(gravity_m_s2=g, gravity_given=given)
-    return dataclasses.replace(d, **changes)
+        d = point_design(opt.length(length))
+    if body_options:
+        if not d.shorthand:
+            option = next(iter(body_options.values()))
+            raise InvalidInput(option, MISSING, "a design file with a [pendulum] section, or "
+                               "no design file", "applies to a point bob; this design is built "
+                               "from parts (edit the file instead)")
+        bob = d.parts[0]
+        L = opt.length(length) if length is not None else bob.position
+        m = opt.mass(mass) if mass is not None else bob.mass
+        kind = (opt.suspension(suspension) if suspension is not None
+                else "rigid" if not d.suspension.flexible else "flexible")
+        from ..body import point_bob
+
+        parts, susp = point_bob(L, m, kind)
+        d = dataclasses.replace(d, parts=parts, suspension=susp)
+    amps = tuple(opt.amplitudes(amplitude)) if amplitude is not None else None
+    g, given = opt.gravity(gravity) if gravity is not None else (None, "")
+    return d.with_changes(amplitudes=amps, gravity=g, gravity_given=given)
 
 
 DesignArg = Annotated[Optional[Path], typer.Argument(
-    metavar="DESIGN.toml", help="Design file (TOML). Default: the bundled example clock.",
+    metavar="DESIGN.toml", help="Design file (TOML). Default: the bundled long-case clock.",
     show_default=False)]
 
 
@@ -196,24 +203,25 @@ def pendulum(design: DesignArg = None, length: opt.Length = None, amplitude: opt
              mass: opt.Mass = None, suspension: opt.Suspension = None,
              gravity: opt.Gravity = None, fmt: opt.Format = None, output: opt.Output = None,
              force: opt.Force = False) -> None:
-    """Simple-pendulum summary at each working amplitude: period, beat, speeds, tensions,
-    energy, over-the-top and slack limits, with warnings and safety cautions.
+    """Pendulum summary at each working amplitude: period, beat, rate, peak speeds and
+    loads, energy, over-the-top and slack limits, with warnings and safety cautions.
 
-    Options override the design file. Without a file: the bundled example, or, given
-    --length/--mass/--suspension, a plain design (1 kg, 10 deg, rigid, standard gravity).
+    --amplitude and --gravity override the design file; --length, --mass and --suspension
+    apply to a point-bob ([pendulum]) design. Without a file: the bundled example, or,
+    given --length/--mass/--suspension, a point bob (1 kg, 10 deg, rigid, standard gravity).
     """
     _pendulum(design, length, amplitude, mass, suspension, gravity, fmt, output, force)
 
 
 def _pendulum(design, length, amplitude, mass, suspension, gravity, fmt, output, force):
-    from ..report.builders import pendulum_report
+    from ..report.design import design_report
 
     kind, path = _precheck(fmt, output, force)
     d = _design(design, length, mass, suspension, amplitude, gravity)
     with _options_named(**_given(length=(length, "--length"), mass=(mass, "--mass"),
                                  gravity=(gravity, "--gravity"),
                                  amplitude=(amplitude, "--amplitude"))):
-        report = pendulum_report(d)
+        report = design_report(d)
     _emit(report, kind, path, force)
 
 
@@ -317,6 +325,11 @@ def motion(angle: Annotated[str, typer.Option(
     with _options_named(**names):
         report = motion_report(theta, omega, L, g, bottom_speed=v, duration=T, step=dt)
     _emit(report, kind, path, force)
+
+
+from . import designs as _designs  # noqa: E402 - registers the design commands on the app
+
+_designs.register(app)
 
 
 def main(argv=None) -> None:

@@ -106,6 +106,34 @@ def cycles(text: str, field: str = "--cycles") -> float:
     return value
 
 
+def count(text: str, field: str, low: int, high: int) -> int:
+    """A whole number in [low, high]."""
+    allowed = f"a whole number in [{low}, {high}]"
+    value, unit = split_magnitude(text, field, allowed)
+    if unit or value != int(value):
+        raise InvalidInput(field, text, allowed, "not a whole number")
+    if not low <= value <= high:
+        raise InvalidInput(field, text, allowed, "out of range")
+    return int(value)
+
+
+def limit_value(text: str, kind: str, field: str = "--max") -> float:
+    """A limit > 0 of the given kind; kind "g" takes '2.5 g', '2.5' or an acceleration."""
+    if kind != "g":
+        return parse_quantity(text, kind, field, minimum=0.0, include_min=False)
+    from ..constants import STANDARD_GRAVITY
+
+    allowed = "a felt acceleration > 0 in g, e.g. '2.5 g', 2.5 or '25 m/s^2'"
+    value, unit = split_magnitude(text, field, allowed)
+    if unit in ("", "g", "g0", "gn"):
+        out = value
+    else:
+        out = parse_quantity(text, "acceleration", field, allowed=allowed) / STANDARD_GRAVITY
+    if not out > 0.0:
+        raise InvalidInput(field, text, allowed, "out of range")
+    return out
+
+
 def positive_time(text: str, field: str) -> float:
     return parse_quantity(text, "time", field, minimum=0.0, include_min=False,
                           allowed="a time > 0, e.g. '10 s', '2 min' or a bare number in s")

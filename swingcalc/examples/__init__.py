@@ -7,7 +7,7 @@ from importlib import resources
 __all__ = ["DEFAULT", "names", "path", "text"]
 
 #: The design the main command runs when no file is given.
-DEFAULT = "workshop_clock.toml"
+DEFAULT = "long_case_clock.toml"
 
 
 def names() -> list[str]:

@@ -15,7 +15,7 @@ from ..linear import SERIES_TERMS
 from .cautions import cautions_for
 from .model import Column, Item, Report, Table, amplitude_text
 
-__all__ = ["MAX_HISTORY_SAMPLES", "pendulum_report", "periods_report", "small_angle_report",
+__all__ = ["MAX_HISTORY_SAMPLES", "periods_report", "small_angle_report",
            "motion_report"]
 
 _DEG = 180.0 / math.pi
@@ -55,75 +55,6 @@ def _amplitude_columns() -> list[Column]:
 def _floats(values) -> list[float]:
     """Python floats from a library array (numpy scalars would print as np.float64(...))."""
     return np.asarray(values, dtype=float).tolist()
-
-
-def pendulum_report(design) -> Report:
-    """Simple-pendulum summary of a :class:`~swingcalc.designfile.Design` at each amplitude."""
-    b = design.body
-    g = design.gravity_m_s2
-    results = [simple_pendulum(b.length_m, a, mass=b.bob_mass_kg, gravity=g,
-                               suspension=b.suspension) for a in design.amplitudes_rad]
-    clock = design.context == "clock"
-    flexible = b.suspension == "flexible"
-    cols = _amplitude_columns() + [
-        Column("period_s", "period T", "s", fmt="#.7g"),
-        Column("period_ratio", "T / T0", "", fmt=".7f"),
-        Column("small_angle_period_error_rel", "small-angle period error", **_PCT),
-        Column("frequency_hz", "frequency", "Hz", fmt="#.6g"),
-        Column("beats_per_hour", "beats per hour", "", fmt="#.6g"),
-    ]
-    if clock:
-        cols.append(Column("clock_rate_s_per_day", "rate if regulated to T0", "s/day",
-                           fmt="#.4g"))
-    cols += [
-        Column("peak_angular_speed_rad_s", "peak angular speed", "rad/s", fmt="#.4g"),
-        Column("peak_speed_m_s", "peak bob speed", "m/s", fmt="#.4g"),
-        Column("peak_tension_N", "peak tension (bottom)", "N", fmt="#.5g"),
-        Column("peak_tension_per_weight", "peak tension / weight", "", fmt="#.4g"),
-        Column("min_tension_N", "least tension (ends)", "N", fmt="#.5g"),
-        Column("energy_J", "swing energy", "J", fmt="#.5g"),
-        Column("zero_tension_angle_deg",
-               "slack angle" if flexible else "rod in compression beyond", "deg",
-               fmt=".4g", missing="never"),
-        Column("zero_tension_angle_rad", "zero-tension angle", "rad", in_text=False),
-        Column("separatrix_margin", "separatrix margin 1 - E/E_sep", "", fmt="#.4g"),
-        Column("harmonic_3_rel", "3rd harmonic / fundamental", "%", 100.0, "#.3g"),
-    ]
-    rows, warnings = [], []
-    for a, r in zip(design.amplitudes_rad, results):
-        z = r.zero_tension_angle_rad
-        row = [_deg_value(a), a, r.period_s, r.period_ratio, small_angle_period_error(a),
-               r.frequency_hz, r.beats_per_hour]
-        if clock:
-            row.append(clock_rate_error(a))
-        row += [r.peak_angular_speed_rad_s, r.peak_speed_m_s, r.peak_tension_N,
-                r.peak_tension_N / (r.mass_kg * r.gravity_m_s2), r.min_tension_N, r.energy_J,
-                None if z is None else z * _DEG, z, r.separatrix_margin, harmonic_ratio(a, 3)]
-        rows.append(tuple(row))
-        warnings += [f"at {_deg(a)} deg amplitude: {w}" for w in r.warnings]
-    first = results[0]
-    title = f"Simple pendulum: {design.name}" + (f", rev. {design.revision}"
-                                                 if design.revision else "")
-    inputs = [Item("design_name", "design", design.name),
-              Item("design_source", "design file", design.source or "(options)"),
-              Item("context", "context", design.context),
-              Item("length_m", "length, pivot to bob centre", b.length_m, "m", fmt=".6g"),
-              Item("bob_mass_kg", "bob mass", b.bob_mass_kg, "kg", fmt=".6g"),
-              Item("suspension", "suspension", b.suspension),
-              Item("gravity_m_s2", "gravity" + (" (standard)" if design.gravity_given ==
-                                                "standard" else ""), g, "m/s^2", fmt=".6g")]
-    summary = [Item("small_angle_period_s", "small-angle period T0", first.small_angle_period_s,
-                    "s", fmt=".7g"),
-               Item("weight_N", "bob weight (static tension)", b.bob_mass_kg * g, "N", fmt=".5g"),
-               Item("over_top_speed_rigid_m_s", "bottom speed for over the top, rigid rod",
-                    first.over_top_speed_rigid_m_s, "m/s", fmt=".4g"),
-               Item("over_top_speed_flexible_m_s",
-                    "bottom speed for over the top, flexible",
-                    first.over_top_speed_flexible_m_s, "m/s", fmt=".4g")]
-    table = Table("swing", "At each working amplitude", tuple(cols), tuple(rows),
-                  transpose=len(rows) <= _TRANSPOSE_MAX)
-    return Report("pendulum", title, inputs, summary, [table], notes=[_ERROR_NOTE],
-                  warnings=warnings, cautions=cautions_for(design.context, loads=True))
 
 
 def periods_report(amplitudes, length: float, gravity: float, gravity_given: str = "") -> Report:

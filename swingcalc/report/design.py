@@ -1,0 +1,441 @@
+"""Reports on a design (a body in its environment): the pendulum summary, the body, the
+loads through the swing, and each sizing result. Builders call the library and return a
+:class:`~swingcalc.report.model.Report`; no maths lives here beyond unit scaling."""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from .. import clock_rate_error, harmonic_ratio, small_angle_period_error
+from ..compound import thermal_rate
+from ..constants import SECONDS_PER_DAY, SECONDS_PER_HOUR
+from ..loads import DEFAULT_SAMPLES, impact, swing_loads
+from ..sizing import (drop_angle_for_energy, drop_angle_for_speed, length_for_period,
+                      max_amplitude_for_limit, period_at, position_for_period,
+                      rating_adjustment, sensitivities)
+from .builders import _ERROR_NOTE, _PCT, _TRANSPOSE_MAX, _deg, _deg_value
+from .cautions import cautions_for
+from .model import Column, Item, Report, Table, amplitude_text
+
+__all__ = ["design_report", "body_report", "loads_report", "tune_report", "drop_report",
+           "limit_report", "sensitivity_report"]
+
+_DEG = 180.0 / math.pi
+
+
+def _title(what: str, design) -> str:
+    rev = f", rev. {design.revision}" if design.revision else ""
+    return f"{what}: {design.name}{rev}"
+
+
+def _design_inputs(design) -> list[Item]:
+    env = design.environment
+    items = [Item("design_name", "design", design.name),
+             Item("design_source", "design file", design.source or "(options)")]
+    if design.revision:
+        items.append(Item("revision", "revision", design.revision))
+    if design.date:
+        items.append(Item("date", "date", design.date))
+    given = env.gravity_given
+    items += [Item("context", "context", design.context),
+              Item("gravity_m_s2", "gravity" if given.replace(" ", "") == f"{env.gravity_m_s2}"
+                   else f"gravity ({given})", env.gravity_m_s2, "m/s^2", fmt=".8g"),
+              Item("temperature_degC", "temperature", env.temperature_K - 273.15, "degC",
+                   fmt=".4g"),
+              Item("air_density_kg_m3", "air density" if env.air else "air (off: vacuum)",
+                   env.air_density_kg_m3, "kg/m^3", fmt=".5g")]
+    return items
+
+
+def _body_items(pend) -> list[Item]:
+    b = pend.body
+    return [Item("mass_kg", "mass", b.mass_kg, "kg", fmt=".6g"),
+            Item("com_distance_m", "pivot to centre of mass", b.com_distance_m, "m", fmt=".6g"),
+            Item("inertia_pivot_kg_m2", "inertia about the pivot", b.inertia_pivot_kg_m2,
+                 "kg m^2", fmt=".6g"),
+            Item("equivalent_length_m", "equivalent simple length I/(m d)",
+                 b.equivalent_length_m, "m", fmt=".6g")]
+
+
+def design_report(design) -> Report:
+    """The main summary: period, beat and the peak loads of the design at each amplitude."""
+    pend = design.pendulum
+    clock = design.context == "clock"
+    points = design.points_dict()
+    flexible = pend.body.suspension.flexible
+    cols = [Column("amplitude_deg", "amplitude", "deg", fmt=amplitude_text),
+            Column("amplitude_rad", "amplitude", "rad", in_text=False),
+            Column("period_s", "period T", "s", fmt="#.7g"),
+            Column("period_ratio", "T / T0", "", fmt=".7f"),
+            Column("small_angle_period_error_rel", "small-angle period error", **_PCT),
+            Column("beats_per_hour", "beats per hour", "", fmt="#.6g")]
+    if clock:
+        cols.append(Column("clock_rate_s_per_day", "rate if regulated to T0", "s/day",
+                           fmt="#.4g"))
+    if design.target_period_s is not None:
+        cols.append(Column("rate_vs_target_s_per_day", "rate against the target period",
+                           "s/day", fmt="#.4g"))
+    cols += [Column("peak_angular_speed_rad_s", "peak angular speed", "rad/s", fmt="#.4g"),
+             Column("peak_pivot_load_N", "peak pivot load", "N", fmt="#.5g"),
+             Column("peak_pivot_load_per_weight", "peak pivot load / weight", "", fmt="#.4g"),
+             Column("least_arm_tension_N",
+                    "least suspension tension" if flexible else "least arm tension", "N",
+                    fmt="#.5g"),
+             Column("energy_J", "swing energy", "J", fmt="#.5g"),
+             Column("separatrix_margin", "separatrix margin 1 - E/E_sep", "", fmt="#.4g"),
+             Column("zero_tension_angle_deg",
+                    "slack angle" if flexible else "arm in compression beyond", "deg",
+                    fmt=".4g", missing="never"),
+             Column("harmonic_3_rel", "3rd harmonic / fundamental", "%", 100.0, "#.3g")]
+    for name in points:
+        cols += [Column(f"{name}.peak_speed_m_s", f"{name}: peak speed", "m/s", fmt="#.4g"),
+                 Column(f"{name}.peak_felt_g", f"{name}: peak felt acceleration", "g",
+                        fmt="#.4g")]
+    rows, warnings = [], []
+    for a in design.amplitudes_rad:
+        loads = swing_loads(pend, a, points=points, samples=3)
+        t = period_at(pend, a)
+        tension = loads.payload_tension_N if flexible else loads.arm_tension_N
+        zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
+        row = [_deg_value(a), a, t, t / pend.small_angle_period_s,
+               small_angle_period_error(a), 2.0 * SECONDS_PER_HOUR / t]
+        if clock:
+            row.append(clock_rate_error(a))
+        if design.target_period_s is not None:
+            row.append(SECONDS_PER_DAY * (design.target_period_s / t - 1.0))
+        row += [loads.peak("angular_speed_rad_s").value, loads.peak("reaction_N").value,
+                loads.peak("reaction_N").value / loads.weight_N,
+                max(float(np.min(tension)), 0.0) if flexible else float(np.min(tension)),
+                loads.energy_J, loads.separatrix_margin,
+                None if zero is None else zero * _DEG, harmonic_ratio(a, 3)]
+        for name in points:
+            row += [abs(loads.peak(f"{name}.speed_m_s").value),
+                    abs(loads.peak(f"{name}.felt_g").value)]
+        rows.append(tuple(row))
+        warnings += [f"at {_deg(a)} deg amplitude: {w}" for w in loads.warnings]
+    summary = _body_items(pend) + [
+        Item("small_angle_period_s", "small-angle period T0", pend.small_angle_period_s, "s",
+             fmt=".8g"),
+        Item("weight_N", "weight (static pivot load)", pend.mass_kg * pend.gravity_m_s2, "N",
+             fmt=".5g"),
+        Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top",
+             loads.over_top_speed_rad_s, "rad/s", fmt=".4g")]
+    if design.environment.air:
+        summary += [Item("air_period_shift_rel", "air's period shift (buoyancy + added mass)",
+                         (1 + pend.buoyancy_period_shift_rel)
+                         * (1 + pend.added_mass_period_shift_rel) - 1, "ppm", 1e6, ".4g")]
+    if design.target_period_s is not None:
+        summary.append(Item("target_period_s", "target period", design.target_period_s, "s",
+                            fmt=".8g"))
+    if design.impact is not None:
+        summary += _impact_items(pend, design.impact)
+    notes = [_ERROR_NOTE]
+    if flexible:
+        notes.append(_FLEXIBLE_NOTE)
+    table = Table("swing", "At each working amplitude", tuple(cols), tuple(rows),
+                  transpose=len(rows) <= _TRANSPOSE_MAX)
+    return Report("pendulum", _title("Pendulum", design), _design_inputs(design), summary,
+                  [table], notes=notes, warnings=warnings,
+                  cautions=cautions_for(design.context, loads=True))
+
+
+_FLEXIBLE_NOTE = ("Flexible suspension: while taut it swings with the payload as one body "
+                  "(its own mass as a straight line from the pivot); tensions are at the "
+                  "payload end, where it first goes slack.")
+
+
+def _impact_items(pend, imp) -> list[Item]:
+    r = impact(pend, imp.drop_angle_rad, imp.strike_radius_m, imp.rise_angle_rad)
+    items = [Item("drop_angle_deg", "drop angle", r.drop_angle_rad * _DEG, "deg", fmt=".6g"),
+             Item("potential_energy_J", "energy at the strike (potential energy at drop)",
+                  r.potential_energy_J, "J", fmt=".6g"),
+             Item("striking_speed_m_s", "striking speed at the centre of strike",
+                  r.striking_speed_m_s, "m/s", fmt=".5g"),
+             Item("strike_radius_m", "pivot to the centre of strike", r.strike_radius_m, "m",
+                  fmt=".6g"),
+             Item("centre_of_percussion_m", "pivot to the centre of percussion",
+                  r.centre_of_percussion_m, "m", fmt=".6g"),
+             Item("percussion_offset_rel", "centre of strike beyond the centre of percussion",
+                  r.percussion_offset_rel, "%", 100.0, ".3g")]
+    if r.absorbed_J is not None:
+        items += [Item("rise_angle_deg", "rise angle", r.rise_angle_rad * _DEG, "deg",
+                       fmt=".6g"),
+                  Item("absorbed_J", "energy absorbed (no friction or windage deducted)",
+                       r.absorbed_J, "J", fmt=".6g")]
+    return items
+
+
+def body_report(design) -> Report:
+    """The body: each part's mass and inertia, the mass properties, air and temperature."""
+    pend = design.pendulum
+    b = pend.body
+    cols = (Column("part", "part"), Column("shape", "shape"),
+            Column("material", "material", missing=""),
+            Column("mass_kg", "mass", "kg", fmt=".5g"),
+            Column("centre_along_m", "centre along arm", "mm", 1e3, ".6g"),
+            Column("centre_across_m", "across", "mm", 1e3, ".4g"),
+            Column("own_inertia_kg_m2", "own inertia", "kg m^2", fmt=".4g"),
+            Column("inertia_pivot_kg_m2", "inertia about pivot", "kg m^2", fmt=".5g"),
+            Column("volume_m3", "volume", "L", 1e3, ".4g"),
+            Column("expansion_per_K", "expansion", "1e-6/K", 1e6, ".3g"))
+    rows = tuple((p.name, p.shape if p.orientation is None else f"{p.shape} ({p.orientation})",
+                  p.material, p.mass_kg, p.centre_along_m, p.centre_across_m,
+                  p.own_inertia_kg_m2, p.inertia_pivot_kg_m2, p.volume_m3, p.expansion_per_K)
+                 for p in b.parts)
+    summary = _body_items(pend) + [
+        Item("com_along_m", "centre of mass along the arm", b.com_along_m, "m", fmt=".6g"),
+        Item("com_across_m", "centre of mass across the arm", b.com_across_m, "m", fmt=".4g"),
+        Item("hang_tilt_deg", "arm tilt when hanging at rest", b.hang_tilt_rad * _DEG, "deg",
+             fmt=".4g"),
+        Item("inertia_com_kg_m2", "inertia about the centre of mass", b.inertia_com_kg_m2,
+             "kg m^2", fmt=".6g"),
+        Item("gyration_pivot_m", "radius of gyration about the pivot", b.gyration_pivot_m,
+             "m", fmt=".6g"),
+        Item("gyration_com_m", "radius of gyration about the centre of mass",
+             b.gyration_com_m, "m", fmt=".6g"),
+        Item("centre_of_percussion_m", "pivot to the centre of percussion",
+             b.centre_of_percussion_m, "m", fmt=".6g"),
+        Item("vacuum_small_angle_period_s", "small-angle period in a vacuum",
+             pend.vacuum_small_angle_period_s, "s", fmt=".8g"),
+        Item("small_angle_period_s", "small-angle period here", pend.small_angle_period_s, "s",
+             fmt=".8g")]
+    if design.environment.air:
+        summary += [
+            Item("buoyancy_period_shift_rel", "buoyancy: period shift",
+                 pend.buoyancy_period_shift_rel, "ppm", 1e6, ".4g"),
+            Item("buoyancy_rate_s_per_day", "buoyancy: rate change",
+                 pend.buoyancy_rate_s_per_day, "s/day", fmt=".4g"),
+            Item("added_mass_period_shift_rel", "air carried along: period shift",
+                 pend.added_mass_period_shift_rel, "ppm", 1e6, ".4g"),
+            Item("added_mass_rate_s_per_day", "air carried along: rate change",
+                 pend.added_mass_rate_s_per_day, "s/day", fmt=".4g"),
+            Item("drag_coefficient_N_m_s2", "quadratic drag: torque / omega^2",
+                 pend.air.drag_coefficient_N_m_s2, "N m s^2", fmt=".4g")]
+    th = thermal_rate(pend)
+    summary += [Item("thermal_rate_s_per_day_per_K", "rate change with temperature",
+                     th.rate_s_per_day_per_K, "s/day/K", fmt=".4g"),
+                Item("plain_thermal_rate_s_per_day_per_K",
+                     "the same, all of the arm's material", th.plain_rate_s_per_day_per_K,
+                     "s/day/K", fmt=".4g")]
+    if th.compensation is not None and any(
+            p.expansion_per_K != b.arm_expansion_per_K for p in b.parts if p.mass_kg > 0):
+        summary.append(Item("thermal_compensation_rel", "temperature compensation achieved",
+                            th.compensation, "%", 100.0, ".4g"))
+    notes = ["Rate changes are positive when the clock gains. A part grows about its mount "
+             "point, which moves with the arm's expansion."]
+    if b.suspension.flexible:
+        notes.append(_FLEXIBLE_NOTE)
+    table = Table("parts", "Parts (the suspension line last, if flexible)", cols, rows)
+    return Report("body", _title("Body", design), _design_inputs(design), summary, [table],
+                  notes=notes, cautions=cautions_for(design.context, loads=True))
+
+
+def loads_report(design, amplitude: float | None = None,
+                 samples: int = DEFAULT_SAMPLES) -> Report:
+    """Loads and motion over one swing at ``amplitude`` (default: the design's largest)."""
+    pend = design.pendulum
+    a = max(design.amplitudes_rad) if amplitude is None else amplitude
+    points = design.points_dict()
+    loads = swing_loads(pend, a, points=points, samples=samples)
+    flexible = pend.body.suspension.flexible
+    cols = [Column("angle_deg", "angle", "deg", fmt=".6g"),
+            Column("angle_rad", "angle", "rad", in_text=False),
+            Column("angular_speed_rad_s", "angular speed", "rad/s", fmt=".5g"),
+            Column("angular_acceleration_rad_s2", "angular acceleration", "rad/s^2", fmt=".5g"),
+            Column("arm_tension_N", "pull along arm", "N", fmt=".6g"),
+            Column("reaction_tangential_N", "across arm", "N", fmt=".5g"),
+            Column("reaction_N", "pivot load", "N", fmt=".6g"),
+            Column("reaction_x_N", "pivot reaction x", "N", fmt=".5g", in_text=False),
+            Column("reaction_y_N", "pivot reaction y", "N", fmt=".5g", in_text=False),
+            Column("kinetic_energy_J", "kinetic energy", "J", fmt=".5g"),
+            Column("potential_energy_J", "potential energy", "J", fmt=".5g")]
+    series = [loads.angle_rad * _DEG, loads.angle_rad, loads.angular_speed_rad_s,
+              loads.angular_acceleration_rad_s2, loads.arm_tension_N,
+              loads.reaction_tangential_N, loads.reaction_N, loads.reaction_x_N,
+              loads.reaction_y_N, loads.kinetic_energy_J, loads.potential_energy_J]
+    if flexible:
+        cols.append(Column("payload_tension_N", "suspension tension at payload", "N",
+                           fmt=".6g"))
+        series.append(loads.payload_tension_N)
+    for pm in loads.points:
+        cols += [Column(f"{pm.name}.speed_m_s", f"{pm.name}: speed", "m/s", fmt=".4g"),
+                 Column(f"{pm.name}.felt_normal_g", f"{pm.name}: felt normal", "g", fmt=".4g"),
+                 Column(f"{pm.name}.felt_tangential_g", f"{pm.name}: felt along", "g",
+                        fmt=".3g"),
+                 Column(f"{pm.name}.felt_g", f"{pm.name}: felt total", "g", fmt=".4g")]
+        series += [pm.speed_m_s, pm.felt_normal_g, pm.felt_tangential_g, pm.felt_g]
+    rows = tuple(zip(*[np.asarray(s, dtype=float).tolist() for s in series]))
+    peaks = Table("peaks", "Peaks over the swing (largest magnitude, and where)",
+                  (Column("quantity", "quantity"), Column("value", "value", fmt=".6g"),
+                   Column("angle_deg", "at angle", "deg", fmt=".5g"),
+                   Column("angle_rad", "at angle", "rad", in_text=False)),
+                  tuple((p.quantity, p.value, p.angle_rad * _DEG, p.angle_rad)
+                        for p in loads.peaks))
+    summary = [Item("amplitude_deg", "amplitude", _deg_value(a), "deg", fmt=amplitude_text),
+               Item("period_s", "period", period_at(pend, a), "s", fmt=".8g"),
+               Item("energy_J", "swing energy", loads.energy_J, "J", fmt=".6g"),
+               Item("separatrix_energy_J", "energy to go over the top", loads.separatrix_energy_J,
+                    "J", fmt=".6g"),
+               Item("separatrix_margin", "separatrix margin 1 - E/E_sep", loads.separatrix_margin,
+                    "", fmt=".4g"),
+               Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top",
+                    loads.over_top_speed_rad_s, "rad/s", fmt=".5g"),
+               Item("weight_N", "weight (static pivot load)", loads.weight_N, "N", fmt=".6g")]
+    if flexible:
+        summary.append(Item("slack_angle_deg", "suspension goes slack at",
+                            None if loads.slack_angle_rad is None
+                            else loads.slack_angle_rad * _DEG, "deg", fmt=".5g"))
+    else:
+        summary.append(Item("compression_angle_deg", "arm in compression beyond",
+                            None if loads.compression_angle_rad is None
+                            else loads.compression_angle_rad * _DEG, "deg", fmt=".5g"))
+    if design.impact is not None:
+        summary += _impact_items(pend, design.impact)
+    notes = ["Angles from the hanging position; pivot load is the force the pivot carries "
+             "(the reaction on the body, reversed). 'Pull along arm' is positive in tension. "
+             "Felt accelerations are acceleration less gravity, in g: 'normal' presses toward "
+             "the pivot side, 1 g at rest."]
+    if flexible:
+        notes.append(_FLEXIBLE_NOTE)
+    table = Table("loads", f"Through the swing at {_deg(a)} deg", tuple(cols), rows)
+    return Report("loads", _title("Loads through the swing", design), _design_inputs(design),
+                  summary, [table, peaks], notes=notes, warnings=list(loads.warnings),
+                  cautions=cautions_for(design.context, loads=True))
+
+
+def tune_report(design, target: float, amplitude: float, part: str | None) -> Report:
+    """Length or part position for the target period at the working amplitude."""
+    pend = design.pendulum
+    inputs = _design_inputs(design) + [
+        Item("target_period_s", "target period", target, "s", fmt=".10g"),
+        Item("amplitude_deg", "at amplitude", _deg_value(amplitude), "deg", fmt=amplitude_text)]
+    if design.shorthand and part is None:
+        L = length_for_period(target, amplitude, pend.gravity_m_s2)
+        summary = [Item("length_m", "length, pivot to bob centre", L, "mm", 1e3, ".10g"),
+                   Item("length_now_m", "length as given", pend.body.com_distance_m, "mm", 1e3,
+                        ".10g"),
+                   Item("change_m", "change", L - pend.body.com_distance_m, "mm", 1e3, ".6g"),
+                   Item("zero_amplitude_length_m", "length for the target at zero amplitude",
+                        length_for_period(target, 0.0, pend.gravity_m_s2), "mm", 1e3, ".10g")]
+        notes = ["A point bob on a light rod; air effects are not applied to a point bob."]
+    else:
+        name = part or (design.rating.part if design.rating else None)
+        if name is None:
+            from ..errors import MISSING, InvalidInput
+
+            raise InvalidInput("--part", MISSING, "the name of the part to move: "
+                               + ", ".join(p.name for p in design.parts),
+                               "required for a design of parts without a [rating] part")
+        sol = position_for_period(pend, name, target, amplitude)
+        zero = position_for_period(pend, name, target, 0.0)
+        summary = [Item("part", "part moved", name),
+                   Item("position_m", "new position (as the file gives it)", sol.position_m,
+                        "mm", 1e3, ".10g"),
+                   Item("centre_m", "its centre", sol.centre_m, "mm", 1e3, ".10g"),
+                   Item("move_m", "move (positive: away from the pivot)", sol.move_m, "mm",
+                        1e3, ".6g"),
+                   Item("period_s", "period there, recomputed", sol.period_s, "s", fmt=".13g"),
+                   Item("zero_amplitude_position_m", "position for the target at zero amplitude",
+                        zero.position_m, "mm", 1e3, ".10g")]
+        if sol.other_positions_m:
+            summary.append(Item("other_positions_m", "other positions with the same period",
+                                ", ".join(f"{x * 1e3:.6g}" for x in sol.other_positions_m),
+                                "mm"))
+        notes = ["The period includes the air's buoyancy and added mass when air is on, and "
+                 "the part positions at the working temperature."]
+    return Report("tune", _title("Tuning for a target period", design), inputs, summary, [],
+                  notes=notes, cautions=cautions_for(design.context, loads=False))
+
+
+def drop_report(design, energy: float | None, speed: float | None,
+                radius: float | None) -> Report:
+    """Drop angle for a target energy or striking speed, and what that drop gives."""
+    pend = design.pendulum
+    imp = design.impact
+    r = radius if radius is not None else (imp.strike_radius_m if imp else None)
+    if speed is not None:
+        if r is None:
+            from ..errors import MISSING, InvalidInput
+
+            raise InvalidInput("--radius", MISSING, "a strike radius, e.g. '0.8 m'",
+                               "needed with --speed when the design has no [impact] section")
+        alpha = drop_angle_for_speed(pend, speed, r)
+        target = Item("target_speed_m_s", "target striking speed", speed, "m/s", fmt=".6g")
+    else:
+        alpha = drop_angle_for_energy(pend, energy)
+        target = Item("target_energy_J", "target energy", energy, "J", fmt=".6g")
+    res = impact(pend, alpha, r if r is not None else pend.body.centre_of_percussion_m)
+    summary = [Item("drop_angle_deg", "drop angle from the hanging position", alpha * _DEG,
+                    "deg", fmt=".8g"),
+               Item("drop_angle_rad", "drop angle", alpha, "rad", fmt=".10g"),
+               Item("potential_energy_J", "energy at the bottom", res.potential_energy_J, "J",
+                    fmt=".8g"),
+               Item("striking_speed_m_s", "speed at the strike radius", res.striking_speed_m_s,
+                    "m/s", fmt=".6g"),
+               Item("strike_radius_m", "strike radius", res.strike_radius_m, "m", fmt=".6g"),
+               Item("energy_rise_m", "drop height of the centre of mass",
+                    pend.body.com_distance_m * (1 - math.cos(alpha)), "m", fmt=".5g")]
+    return Report("drop", _title("Drop angle", design), _design_inputs(design) + [target],
+                  summary, [], notes=["Friction and windage losses are not deducted."],
+                  cautions=cautions_for(design.context, loads=True))
+
+
+def limit_report(design, quantity: str, limit: float) -> Report:
+    """The largest amplitude that keeps one peak quantity under a limit."""
+    pend = design.pendulum
+    points = design.points_dict()
+    a = max_amplitude_for_limit(pend, quantity, limit, points)
+    summary = [Item("quantity", "limited quantity", quantity),
+               Item("limit", "limit (SI unit of the quantity)", limit, "", fmt=".6g")]
+    if a >= math.pi:
+        summary.append(Item("max_amplitude_deg", "largest amplitude", "any libration (< 180)",
+                            "deg"))
+        notes = ["The limit is not reached by any swing short of going over the top."]
+    else:
+        peak = swing_loads(pend, a, points=points, samples=3).peak(quantity)
+        summary += [Item("max_amplitude_deg", "largest amplitude", a * _DEG, "deg", fmt=".8g"),
+                    Item("max_amplitude_rad", "largest amplitude", a, "rad", fmt=".10g"),
+                    Item("peak_at_limit", "peak there, recomputed", abs(peak.value), "",
+                         fmt=".10g"),
+                    Item("period_s", "period there", period_at(pend, a), "s", fmt=".8g")]
+        notes = []
+    return Report("limit", _title("Largest amplitude under a limit", design),
+                  _design_inputs(design), summary, [], notes=notes,
+                  cautions=cautions_for(design.context, loads=True))
+
+
+def sensitivity_report(design, amplitude: float | None = None) -> Report:
+    """How the period and rate move with each input, and the rating adjustment."""
+    pend = design.pendulum
+    a = design.amplitudes_rad[0] if amplitude is None else amplitude
+    sens = sensitivities(pend, a)
+    cols = (Column("input", "input"), Column("value", "value", fmt=".6g"),
+            Column("unit", "unit"),
+            Column("period_per_unit", "dT/dx", "s per unit", fmt=".5g"),
+            Column("relative", "(x/T) dT/dx", "", fmt=".4g"),
+            Column("rate_s_per_day_per_unit", "rate change", "s/day per unit", fmt=".5g"))
+    rows = tuple((s.input, s.value, s.unit, s.period_per_unit, s.relative,
+                  s.rate_s_per_day_per_unit) for s in sens)
+    summary = [Item("amplitude_deg", "at amplitude", _deg_value(a), "deg", fmt=amplitude_text),
+               Item("period_s", "period", period_at(pend, a), "s", fmt=".10g")]
+    if design.rating is not None:
+        adj = rating_adjustment(pend, design.rating.part, a, design.rating.nut_pitch_m)
+        summary.append(Item("rate_s_per_day_per_mm",
+                            f"rate change per mm the {design.rating.part} moves down",
+                            adj["rate_s_per_day_per_mm"], "s/day", fmt=".5g"))
+        if adj["rate_s_per_day_per_turn"] is not None:
+            summary.append(Item("rate_s_per_day_per_turn",
+                                f"per turn of the nut (pitch "
+                                f"{design.rating.nut_pitch_m * 1e3:g} mm) lowering it",
+                                adj["rate_s_per_day_per_turn"], "s/day", fmt=".5g"))
+    th = thermal_rate(pend)
+    summary.append(Item("thermal_rate_s_per_day_per_K", "rate change with temperature",
+                        th.rate_s_per_day_per_K, "s/day/K", fmt=".4g"))
+    table = Table("sensitivities", "Sensitivity of the period to each input", cols, rows)
+    return Report("sensitivity", _title("Sensitivities", design), _design_inputs(design),
+                  summary, [table],
+                  notes=["Rate changes are positive when the clock gains; 'per unit' is per "
+                         "SI unit of the input (m, kg, m/s^2, rad)."],
+                  cautions=cautions_for(design.context, loads=False))
