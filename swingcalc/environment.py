@@ -72,10 +72,11 @@ ELEVATION_MIN = -500.0
 #: ~1e-7 (its next term is ~4 (h/a)^3) and ISO 2533's isothermal layer ends (20 km
 #: geopotential is 20.063 km geometric).
 ELEVATION_MAX = 20000.0
-#: Temperatures accepted by the air and water-vapour equations [K]: -50 degC .. +100 degC.
-#: CIPM-2007 was fitted for 15-27 degC; outside that it is an extrapolation whose non-ideal
-#: terms are all below 0.1 % of the density (see the method note).
-TEMPERATURE_MIN = 223.15
+#: Temperatures accepted by the air and water-vapour equations [K]: -60 degC .. +100 degC
+#: (the coldest sites, and the ISA's 216.65 K above 11 km). CIPM-2007 was fitted for
+#: 15-27 degC; outside that it is an extrapolation whose non-ideal terms stay below 0.1 %
+#: of the density (see the method note).
+TEMPERATURE_MIN = 213.15
 TEMPERATURE_MAX = 373.15
 #: Pressures accepted for air [Pa]: from a clock in an evacuated case (1 Pa) to above the
 #: highest sea-level pressure recorded (about 108.4 kPa). CIPM-2007 was fitted for
@@ -87,7 +88,7 @@ _LATITUDE_ALLOWED = "a finite latitude in [-pi/2, pi/2] rad, i.e. [-90, 90] deg"
 _ELEVATION_ALLOWED = (f"a finite elevation in [{ELEVATION_MIN:g}, {ELEVATION_MAX:g}] m "
                       "(lowest dry land to 20 km)")
 _TEMPERATURE_ALLOWED = (f"a finite temperature in [{TEMPERATURE_MIN:g}, {TEMPERATURE_MAX:g}] K "
-                        "(-50 to 100 degC)")
+                        "(-60 to 100 degC)")
 _PRESSURE_ALLOWED = f"a finite pressure in [{PRESSURE_MIN:g}, {PRESSURE_MAX:g}] Pa"
 _HUMIDITY_ALLOWED = "a finite relative humidity in [0, 1] (0.5 for 50 %)"
 _CO2_ALLOWED = "a finite CO2 mole fraction in [0, 0.01] (0.0004 for 400 ppm)"
@@ -253,7 +254,7 @@ def saturation_vapour_pressure(temperature):
     Parameters
     ----------
     temperature : float or array_like
-        [K] in [223.15, 373.15] (over supercooled water below 273.15 K, the usual
+        [K] in [213.15, 373.15] (over supercooled water below 273.15 K, the usual
         convention for relative humidity).
 
     Notes
@@ -325,7 +326,7 @@ def air_density(temperature, pressure, relative_humidity=0.0, co2_fraction=0.000
     Parameters
     ----------
     temperature : float or array_like
-        Air temperature [K] in [223.15, 373.15].
+        Air temperature [K] in [213.15, 373.15].
     pressure : float or array_like
         Total pressure [Pa] in [1, 120000].
     relative_humidity : float or array_like
@@ -366,7 +367,7 @@ def air_viscosity(temperature):
     Parameters
     ----------
     temperature : float or array_like
-        [K] in [223.15, 373.15].
+        [K] in [213.15, 373.15].
 
     Notes
     -----
@@ -442,7 +443,7 @@ def air(temperature=None, pressure=None, relative_humidity=0.0, elevation=0.0,
     Parameters
     ----------
     temperature : float, optional
-        [K] in [223.15, 373.15]; default: the ISA temperature at ``elevation``.
+        [K] in [213.15, 373.15]; default: the ISA temperature at ``elevation``.
     pressure : float, optional
         [Pa] in [1, 120000]; default: the ISA pressure at ``elevation``.
     relative_humidity : float
