@@ -69,7 +69,7 @@ def csv_rows(text):
 
 def test_no_arguments_runs_the_bundled_design():
     out, _ = run_ok()
-    assert "Workshop regulator" in out and "period T" in out and "CAUTION" in out
+    assert "Long-case clock" in out and "period T" in out and "CAUTION" in out
 
 
 def test_no_arguments_equals_pendulum_without_arguments():
@@ -94,10 +94,11 @@ def test_pendulum_json_is_one_object_in_si_with_cautions():
         # radial equation (any mechanics text, e.g. Young & Freedman, ch. 7 and 5);
         # 1e-13 allows the library's rounding in sin^2 and the product.
         a = r["amplitude_rad"]
-        assert r["peak_tension_N"] == pytest.approx(80 * 9.80665 * (3 - 2 * math.cos(a)),
-                                                    rel=1e-13)
+        assert r["peak_pivot_load_N"] == pytest.approx(
+            80 * 9.80665 * (3 - 2 * math.cos(a)), rel=1e-13)
         if a < math.pi / 2:   # below 90 deg the chain stays taut: least tension m g cos A
-            assert r["min_tension_N"] == pytest.approx(80 * 9.80665 * math.cos(a), rel=1e-13)
+            assert r["least_arm_tension_N"] == pytest.approx(80 * 9.80665 * math.cos(a),
+                                                             rel=1e-13)
     for key in rows[0]:
         assert key.endswith(("_s", "_rad", "_deg", "_hz", "_N", "_J", "_m_s", "_rad_s",
                              "_rel", "_ratio", "_hour", "_per_weight", "margin")), key
@@ -160,7 +161,9 @@ def test_csv_of_pendulum_carries_the_cautions():
     assert cautions and any("ASTM F2291" in line for line in cautions)
     rows = csv_rows(out)
     r = swingcalc.simple_pendulum(2.2, math.radians(60), mass=80, suspension="flexible")
-    assert float(rows[1]["peak_tension_N"]) == r.peak_tension_N
+    # Two routes to m g (1 + 4 sin^2(A/2)): the point-pendulum formula and the body's
+    # pivot reaction; 1e-14 allows their different rounding.
+    assert float(rows[1]["peak_pivot_load_N"]) == pytest.approx(r.peak_tension_N, rel=1e-14)
 
 
 def test_markdown_has_a_table_and_the_cautions():
@@ -425,7 +428,7 @@ def test_csv_comment_lines_start_with_a_hash_even_with_commas(tmp_path):
         'context = "clock"', 'context = "clock"\nrevision = "A, 2"'))
     out, _ = run_ok("pendulum", p, "--format", "csv")
     comments, data = _data_and_comments(out)
-    assert comments[0] == "# Simple pendulum: Seat, rear, , rev. A, 2"
+    assert comments[0] == "# Pendulum: Seat, rear, , rev. A, 2"
     assert "# input: design_name = Seat, rear, " in comments
     assert any(c.startswith("# note: ") for c in comments)
     assert any(c.startswith("# caution: ") and "licensed engineer" in c for c in comments)

@@ -44,9 +44,10 @@ def _error(text: str) -> str:
 def test_good_file_converts_every_quantity_to_si():
     d = parse_design(GOOD, "arm.toml")
     assert d.name == "Test arm" and d.revision == "2" and d.context == "gate"
-    assert d.body.length_m == pytest.approx(0.85, rel=1e-15)
-    assert d.body.bob_mass_kg == 12.0
-    assert d.body.suspension == "rigid"
+    bob, = d.parts
+    assert bob.shape == "point" and bob.position == pytest.approx(0.85, rel=1e-15)
+    assert bob.mass == 12.0
+    assert d.suspension.kind == "rigid"
     assert d.amplitudes_rad == pytest.approx((math.radians(10), 0.5), rel=1e-15)
     assert d.gravity_m_s2 == 9.81
 
@@ -55,10 +56,10 @@ def test_bundled_examples_parse():
     names = examples.names()
     assert examples.DEFAULT in names and len(names) >= 2
     clock = parse_design(examples.text(), examples.DEFAULT)
-    assert clock.context == "clock" and clock.body.suspension == "rigid"
+    assert clock.context == "clock" and clock.suspension.kind == "rigid"
     assert clock.gravity_m_s2 == STANDARD_GRAVITY
     seat = parse_design(examples.text("garden_swing_seat.toml"), "seat")
-    assert seat.body.suspension == "flexible"
+    assert seat.suspension.flexible
     # at least one amplitude past the slack limit of a point bob on a chain: the slack
     # angle exists when sin^2(A/2) > 1/2, i.e. A > 90 deg (energy + radial equation).
     assert max(seat.amplitudes_rad) > math.pi / 2
@@ -162,6 +163,6 @@ def test_case_only_slip_in_a_word_is_suggested():
 
 def test_gravity_word_any_case_and_wrong_type():
     d = parse_design(_with('gravity = "9.81 m/s^2"', 'gravity = " Standard "'), "arm.toml")
-    assert d.gravity_m_s2 == STANDARD_GRAVITY and d.gravity_given == "standard"
+    assert d.gravity_m_s2 == STANDARD_GRAVITY and d.environment.gravity_given == "standard"
     msg = _error(_with('gravity = "9.81 m/s^2"', "gravity = true"))
     assert "environment.gravity" in msg and "wrong type" in msg

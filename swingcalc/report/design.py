@@ -88,6 +88,7 @@ def design_report(design) -> Report:
              Column("zero_tension_angle_deg",
                     "slack angle" if flexible else "arm in compression beyond", "deg",
                     fmt=".4g", missing="never"),
+             Column("zero_tension_angle_rad", "zero-tension angle", "rad", in_text=False),
              Column("harmonic_3_rel", "3rd harmonic / fundamental", "%", 100.0, "#.3g")]
     for name in points:
         cols += [Column(f"{name}.peak_speed_m_s", f"{name}: peak speed", "m/s", fmt="#.4g"),
@@ -109,7 +110,7 @@ def design_report(design) -> Report:
                 loads.peak("reaction_N").value / loads.weight_N,
                 max(float(np.min(tension)), 0.0) if flexible else float(np.min(tension)),
                 loads.energy_J, loads.separatrix_margin,
-                None if zero is None else zero * _DEG, harmonic_ratio(a, 3)]
+                None if zero is None else zero * _DEG, zero, harmonic_ratio(a, 3)]
         for name in points:
             row += [abs(loads.peak(f"{name}.speed_m_s").value),
                     abs(loads.peak(f"{name}.felt_g").value)]
@@ -136,7 +137,14 @@ def design_report(design) -> Report:
         notes.append(_FLEXIBLE_NOTE)
     table = Table("swing", "At each working amplitude", tuple(cols), tuple(rows),
                   transpose=len(rows) <= _TRANSPOSE_MAX)
-    return Report("pendulum", _title("Pendulum", design), _design_inputs(design), summary,
+    inputs = _design_inputs(design)
+    if design.shorthand:
+        bob = pend.body.parts[0]
+        inputs += [Item("length_m", "length, pivot to bob centre", bob.centre_along_m, "m",
+                        fmt=".6g"),
+                   Item("bob_mass_kg", "bob mass (a point)", bob.mass_kg, "kg", fmt=".6g"),
+                   Item("suspension", "suspension", "flexible" if flexible else "rigid")]
+    return Report("pendulum", _title("Pendulum", design), inputs, summary,
                   [table], notes=notes, warnings=warnings,
                   cautions=cautions_for(design.context, loads=True))
 
