@@ -53,7 +53,7 @@ from __future__ import annotations
 import math
 import re
 import unicodedata
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from functools import cached_property
 from pathlib import Path
 
@@ -118,6 +118,7 @@ _MAX_TEXT_CHARS = 200
 #: Temperature the sizes in a design file are given at, unless it says otherwise.
 REFERENCE_TEMPERATURE_K = 293.15
 _POSITIVE = dict(minimum=0.0, include_min=False)
+_TEN_DEGREES = math.radians(10.0)
 
 
 def parse_gravity(value, field_name: str) -> tuple[float, str]:
@@ -489,7 +490,7 @@ def parse_design(text: str, source: str = "<design>") -> Design:
 
 
 def point_design(length: float, mass: float = 1.0, suspension: str = "rigid",
-                 amplitudes=(math.radians(10.0),), name: str = "pendulum from options"
+                 amplitudes=(_TEN_DEGREES,), name: str = "pendulum from options"
                  ) -> Design:
     """A design for a point bob of ``mass`` [kg] at ``length`` [m] on a light rigid or
     flexible suspension, in a vacuum at standard gravity (what ``[pendulum]`` gives)."""
@@ -644,7 +645,7 @@ def _part(r: _Reader, sid: str, t: dict, name: str) -> Part:
         optional = key == "inner_diameter" and shape == "sphere"
         if optional and key not in t:
             continue
-        size[key] = r.quantity(sid, t, key, f"a size >= 0, e.g. \"12 mm\"" if optional
+        size[key] = r.quantity(sid, t, key, "a size >= 0, e.g. \"12 mm\"" if optional
                                else "a size > 0, e.g. \"40 mm\"",
                                **({"minimum": 0.0} if optional else _POSITIVE))
     orientation = None
@@ -793,7 +794,7 @@ def _impact(r: _Reader, t: dict, points) -> Impact | None:
     allowed = "an angle in (0, 180] deg from the hanging position"
     drop = r.quantity(s, t, "drop_angle", allowed, minimum=0.0, include_min=False,
                       maximum=math.pi)
-    rise = r.quantity(s, t, "rise_angle", f"an angle in [0, drop_angle] deg", default=None,
+    rise = r.quantity(s, t, "rise_angle", "an angle in [0, drop_angle] deg", default=None,
                       minimum=0.0, maximum=drop)
     key = r.exclusive(s, t, ("strike_radius", "strike_point"), "the centre of strike")
     if key == "strike_point":

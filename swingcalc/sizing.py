@@ -300,26 +300,30 @@ def sensitivities(pend: CompoundPendulum, amplitude: float) -> tuple:
         out.append(Sensitivity(label, x, unit, d, d * x / t0, -SECONDS_PER_DAY * d / t0))
 
     for i, p in enumerate(body.inputs):
-        def with_part(**change):
-            parts = list(body.inputs)
-            parts[i] = replace(p, **change)
-            return parts
-
-        diff(f"part.{p.name}.{p.at}", "m", p.position,
-             lambda x: period_with(with_part(position=x)))
-        for key, v in p.size.items():
-            if key == "inner_diameter" and v == 0.0:
-                continue
-            diff(f"part.{p.name}.{key}", "m", v,
-                 lambda x, key=key: period_with(with_part(size={**p.size, key: x})))
-        mass = body.part(p.name).mass_kg
-        diff(f"part.{p.name}.mass", "kg", mass,
-             lambda x: period_with(with_part(mass=x, density=None if p.shape not in
-                                             ("point", "custom") else p.density)))
+        for label, unit, x, change in _part_inputs(body, p):
+            diff(f"part.{p.name}.{label}", unit, x,
+                 lambda v, i=i, p=p, change=change: period_with(
+                     body.inputs[:i] + (replace(p, **change(v)),) + body.inputs[i + 1:]))
     diff("environment.gravity", "m/s^2", g, lambda x: period_with(gravity=x))
     if a > 0.0:
         diff("swing.amplitude", "rad", a, lambda x: period_with(amp=x))
     return tuple(out)
+
+
+def _part_inputs(body, p):
+    """(label, unit, value, change) for each input of part ``p``: change(v) gives the
+    dataclass fields that set that input to v."""
+    out = [(p.at, "m", p.position, lambda v: {"position": v})]
+    for key, v in p.size.items():
+        if key == "inner_diameter" and v == 0.0:
+            continue
+        out.append((key, "m", v, lambda x, key=key: {"size": {**p.size, key: x}}))
+    # A shaped part's mass is then given outright (its density no longer sets it); a
+    # point or custom part keeps its density, which sets its displaced volume.
+    keep = p.density if p.shape in ("point", "custom") else None
+    out.append(("mass", "kg", body.part(p.name).mass_kg,
+                lambda v: {"mass": v, "density": keep}))
+    return out
 
 
 def rating_adjustment(pend: CompoundPendulum, part: str, amplitude: float,

@@ -8,7 +8,7 @@ import numpy as np
 
 from .. import (classify, clock_rate_error, harmonic_ratio, peak_speed_error,
                 peak_tension_error, period_excess, period_ratio, period_ratio_bounds, phase_error,
-                series_period_error, series_period_ratio, simple_pendulum, small_angle_check,
+                series_period_error, series_period_ratio, small_angle_check,
                 small_angle_period, small_angle_period_error, swing_history)
 from ..errors import MISSING, InvalidInput
 from ..linear import SERIES_TERMS
