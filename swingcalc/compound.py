@@ -192,7 +192,8 @@ def compound_pendulum(body: Body, gravity: float = STANDARD_GRAVITY,
         body=body, gravity_m_s2=g, air=air, air_viscosity_Pa_s=air_viscosity,
         drag_amplitude_rad=amplitude, restoring_moment_N_m=moment,
         inertia_kg_m2=inertia, natural_angular_frequency_rad_s=omega0,
-        small_angle_period_s=2.0 * math.pi / omega0, vacuum_small_angle_period_s=t_vac,
+        small_angle_period_s=2.0 * math.pi * math.sqrt(inertia / moment),
+        vacuum_small_angle_period_s=t_vac,
         buoyancy_period_shift_rel=shift_b, added_mass_period_shift_rel=shift_a,
         buoyancy_rate_s_per_day=_rate(shift_b), added_mass_rate_s_per_day=_rate(shift_a))
 
