@@ -5,6 +5,19 @@ formatting live at the boundary (``swingcalc.quantity``, ``swingcalc.designfile`
 ``swingcalc.report``, ``swingcalc.cli``), which this package does not import.
 """
 
+from .body import Part, Pivot, Suspension, assemble, point_bob
+from .compound import CompoundPendulum, compound_pendulum, thermal_rate
+from .loads import impact, point_motion, swing_loads
+from .sizing import (
+    drop_angle_for_energy,
+    drop_angle_for_speed,
+    length_for_period,
+    max_amplitude_for_limit,
+    period_at,
+    position_for_period,
+    rating_adjustment,
+    sensitivities,
+)
 from .constants import SECONDS_PER_DAY, STANDARD_GRAVITY
 from .environment import (
     Air,
@@ -70,6 +83,26 @@ from .swing import (
 __version__ = "0.1.0"
 
 __all__ = [
+    # bodies, loads, sizing
+    "Part",
+    "Pivot",
+    "Suspension",
+    "assemble",
+    "point_bob",
+    "CompoundPendulum",
+    "compound_pendulum",
+    "thermal_rate",
+    "swing_loads",
+    "point_motion",
+    "impact",
+    "period_at",
+    "length_for_period",
+    "position_for_period",
+    "drop_angle_for_energy",
+    "drop_angle_for_speed",
+    "max_amplitude_for_limit",
+    "sensitivities",
+    "rating_adjustment",
     "__version__",
     "STANDARD_GRAVITY",
     "SECONDS_PER_DAY",

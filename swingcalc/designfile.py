@@ -165,13 +165,14 @@ class Impact:
 
 @dataclass(frozen=True)
 class Rating:
-    """The part moved to regulate a clock, and the pitch of its rating nut [m]."""
+    """The parts moved to regulate a clock (a bob, or a bob with the nut it rests on),
+    and the pitch of the rating nut [m]."""
 
-    part: str
+    parts: tuple
     nut_pitch_m: float | None = None
 
     def to_dict(self) -> dict:
-        return dict(self.__dict__)
+        return {"parts": list(self.parts), "nut_pitch_m": self.nut_pitch_m}
 
 
 @dataclass(frozen=True)
@@ -813,14 +814,24 @@ def _impact(r: _Reader, t: dict, points) -> Impact | None:
 def _rating(r: _Reader, t: dict, parts) -> Rating | None:
     if not t:
         return None
-    name = r.text("rating", t, "part")
     names = [p.name for p in parts]
-    if name not in names:
-        raise InvalidInput(r.where("rating", "part"), name, "the name of a part: "
-                           + ", ".join(names), f"no such part{suggest(name, names)}")
+    value = r.required("rating", t, "part", "a part name, or a list of the parts the nut "
+                       "moves together")
+    given = value if isinstance(value, list) else [value]
+    if not given or not all(isinstance(v, str) for v in given):
+        raise InvalidInput(r.where("rating", "part"), value,
+                           "a part name in quotes, or a list of them: [\"bob\", \"nut\"]",
+                           "wrong type")
+    for name in given:
+        if name not in names:
+            raise InvalidInput(r.where("rating", "part"), name, "the name of a part: "
+                               + ", ".join(names), f"no such part{suggest(name, names)}")
+    if len(set(given)) != len(given):
+        raise InvalidInput(r.where("rating", "part"), value, "different part names",
+                           "a part is named twice")
     pitch = r.quantity("rating", t, "nut_pitch", "a thread pitch > 0, e.g. \"1 mm\"",
                        default=None, **_POSITIVE)
-    return Rating(name, pitch)
+    return Rating(tuple(given), pitch)
 
 
 def _tolerances(r: _Reader, t, data: dict) -> tuple:

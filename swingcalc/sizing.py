@@ -61,10 +61,11 @@ def length_for_period(period, amplitude, gravity) -> float:
 
 @dataclass(frozen=True)
 class PositionSolution:
-    """Where to put a part so the period at the working amplitude is the target."""
+    """Where to put a part (and the parts that move with it) so the period at the working
+    amplitude is the target. Positions are of the first part moved, as its ``at`` point."""
 
-    part: str
-    position_m: float           # the part's position, as its ``at`` point, along the arm
+    parts: tuple                # the parts moved together (the first one is reported)
+    position_m: float           # the first part's position along the arm
     centre_m: float             # its centroid there
     period_s: float             # recomputed at the solution
     target_period_s: float
@@ -74,16 +75,31 @@ class PositionSolution:
 
     def to_dict(self) -> dict:
         d = dict(self.__dict__)
+        d["parts"] = list(self.parts)
         d["other_positions_m"] = list(self.other_positions_m)
         return d
 
 
-def _rebuilt(body, name: str, position: float):
-    parts = tuple(replace(p, position=position) if p.name == name else p for p in body.inputs)
+def _names(body, parts) -> tuple:
+    """The parts to move, as a tuple of names (one name or several), checked."""
+    names = (parts,) if isinstance(parts, str) else tuple(parts)
+    known = [p.name for p in body.inputs]
+    for n in names:
+        if n not in known:
+            raise InvalidInput("part", n, "one of " + ", ".join(known), "no such part")
+    if not names or len(set(names)) != len(names):
+        raise InvalidInput("part", parts, "one or more different part names")
+    return names
+
+
+def _moved(body, names: tuple, shift: float):
+    """The body with the named parts moved by ``shift`` [m] along the arm."""
+    parts = tuple(replace(p, position=p.position + shift) if p.name in names else p
+                  for p in body.inputs)
     return assemble(parts, body.suspension, body.arm_expansion_per_K)
 
 
-def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
+def position_for_period(pend: CompoundPendulum, part, target_period: float,
                         amplitude: float, lowest=None, highest=None) -> PositionSolution:
     """Position of ``part`` along the arm that gives ``target_period`` [s] at ``amplitude``.
 
@@ -91,15 +107,16 @@ def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
     ----------
     pend : CompoundPendulum
         The design as it is (its body remembers its parts).
-    part : str
-        The part to move (a bob on its rod, a sliding weight).
+    part : str or sequence of str
+        The part to move (a bob on its rod, a sliding weight), or several parts moved
+        together by the same distance (a bob and the rating nut it rests on).
     target_period : float
         [s].
     amplitude : float
         Working amplitude [rad].
     lowest, highest : float, optional
-        Range of the part's position [m] to search; default: from just below the pivot
-        to twice the present position or the arm's length, whichever is further.
+        Range of the first part's position [m] to search; default: from just below the
+        pivot to twice the present position or the arm's reach, whichever is further.
 
     Notes
     -----
@@ -112,10 +129,8 @@ def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
     t = positive_scalar(target_period, "target period", "s")
     a = amplitude_scalar(amplitude)
     body = pend.body
-    inputs = {p.name: p for p in body.inputs}
-    if part not in inputs:
-        raise InvalidInput("part", part, "one of " + ", ".join(inputs), "no such part")
-    now = inputs[part].position
+    names = _names(body, part)
+    now = next(p for p in body.inputs if p.name == names[0]).position
     reach = max((p.centre_along_m + 0.5 * p.extent_along_m for p in body.parts), default=now)
     lo = 1e-3 * max(abs(now), 1e-3) if lowest is None else float(lowest)
     hi = max(2.0 * abs(now), reach) if highest is None else float(highest)
@@ -125,7 +140,7 @@ def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
 
     def excess(x):
         try:
-            b = _rebuilt(body, part, x)
+            b = _moved(body, names, x - now)
         except InvalidInput:
             return math.nan
         return rebuilt(pend, b).small_angle_period_s * ratio - t
@@ -146,20 +161,21 @@ def position_for_period(pend: CompoundPendulum, part: str, target_period: float,
                                 rtol=8.9e-16, maxiter=200))
     if fs[-1] == 0.0:
         roots.append(xs[-1])
+    what = "', '".join(names)
     if not roots:
         finite = [f for f in fs if not math.isnan(f)]
         best = (min(finite) + t) if finite else math.nan
         raise InvalidInput("target period", t,
-                           f"a period this part can reach in [{lo:.6g}, {hi:.6g}] m "
+                           f"a period reachable with '{names[0]}' in [{lo:.6g}, {hi:.6g}] m "
                            f"(the shortest there is {best:.9g} s)"
                            if finite else "a period the part can reach",
-                           f"no position of '{part}' gives it")
+                           f"no position of '{what}' gives it")
     best = min(roots, key=lambda x: abs(x - now))
-    b = _rebuilt(body, part, best)
+    b = _moved(body, names, best - now)
     period = rebuilt(pend, b).small_angle_period_s * ratio
-    return PositionSolution(part=part, position_m=best, centre_m=b.part(part).centre_along_m,
-                            period_s=period, target_period_s=t, amplitude_rad=a,
-                            move_m=best - now,
+    return PositionSolution(parts=names, position_m=best,
+                            centre_m=b.part(names[0]).centre_along_m, period_s=period,
+                            target_period_s=t, amplitude_rad=a, move_m=best - now,
                             other_positions_m=tuple(x for x in roots if x != best))
 
 
@@ -326,23 +342,29 @@ def _part_inputs(body, p):
     return out
 
 
-def rating_adjustment(pend: CompoundPendulum, part: str, amplitude: float,
+def rating_adjustment(pend: CompoundPendulum, part, amplitude: float,
                       nut_pitch=None) -> dict:
-    """How a clock's rate changes as ``part`` (the bob) moves along the arm.
+    """How a clock's rate changes as ``part`` (the bob, or the bob with its rating nut:
+    a name or several names moved together) moves along the arm.
 
     Returns ``{"rate_s_per_day_per_mm": ..., "rate_s_per_day_per_turn": ... or None}``:
     the rate change for 1 mm of travel away from the pivot (negative: the clock loses),
-    and for one turn of a rating nut of ``nut_pitch`` [m] that moves the bob by its pitch.
+    and for one turn of a rating nut of ``nut_pitch`` [m] that lowers the parts by one
+    pitch. Central difference of the recomputed period (step 1e-5 of the period's scale
+    length; see :func:`sensitivities` for its error).
     """
     a = amplitude_scalar(amplitude)
-    names = [p.name for p in pend.body.inputs]
-    if part not in names:
-        raise InvalidInput("rating part", part, "one of " + ", ".join(names), "no such part")
-    per_m = next(s for s in sensitivities(pend, a)
-                 if s.input.startswith(f"part.{part}.") and s.unit == "m"
-                 and s.input.split(".")[-1] in ("centre", "top", "bottom"))
-    per_mm = per_m.rate_s_per_day_per_unit * 1e-3
+    body = pend.body
+    names = _names(body, part)
+    ratio = _ratio(a)
+    t0 = pend.small_angle_period_s * ratio
+    h = _REL_STEP * body.equivalent_length_m
+
+    def period(shift):
+        return rebuilt(pend, _moved(body, names, shift)).small_angle_period_s * ratio
+
+    per_m = -SECONDS_PER_DAY * (period(h) - period(-h)) / (2.0 * h) / t0
     per_turn = None
     if nut_pitch is not None:
-        per_turn = per_m.rate_s_per_day_per_unit * positive_scalar(nut_pitch, "nut pitch", "m")
-    return {"rate_s_per_day_per_mm": per_mm, "rate_s_per_day_per_turn": per_turn}
+        per_turn = per_m * positive_scalar(nut_pitch, "nut pitch", "m")
+    return {"rate_s_per_day_per_mm": per_m * 1e-3, "rate_s_per_day_per_turn": per_turn}

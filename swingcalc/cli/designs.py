@@ -20,7 +20,8 @@ OneAmplitude = Annotated[Optional[str], typer.Option(
     "--amplitude", metavar="ANGLE",
     help="One amplitude, e.g. '45 deg' (bare: deg). Default: from the design file.")]
 Part = Annotated[Optional[str], typer.Option(
-    "--part", metavar="NAME", help="The part to move (default: the design's [rating] part).")]
+    "--part", metavar="NAMES", help="The part to move, or parts moved together: 'bob, "
+    "rating nut' (default: the design's [rating] parts).")]
 
 # What each limited quantity is measured in, for parsing --max.
 _LIMIT_KINDS = {"reaction_N": "force", "arm_tension_N": "force",
@@ -105,7 +106,9 @@ def register(app: typer.Typer) -> None:
             if t is None:
                 raise InvalidInput("--period", MISSING, "a target period, e.g. '2 s'",
                                    "required when the design has no swing.target_period")
-            return tune_report(d, t, d.amplitudes_rad[0] if a is None else a, part)
+            names = None if part is None else tuple(n.strip() for n in part.split(","))
+            with _app()._options_named(part="--part"):
+                return tune_report(d, t, d.amplitudes_rad[0] if a is None else a, names)
 
         _run(design, fmt, output, force, build, gravity=gravity)
 

@@ -329,7 +329,7 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
                         length_for_period(target, 0.0, pend.gravity_m_s2), "mm", 1e3, ".10g")]
         notes = ["A point bob on a light rod; air effects are not applied to a point bob."]
     else:
-        name = part or (design.rating.part if design.rating else None)
+        name = part or (design.rating.parts if design.rating else None)
         if name is None:
             from ..errors import MISSING, InvalidInput
 
@@ -338,10 +338,11 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
                                "required for a design of parts without a [rating] part")
         sol = position_for_period(pend, name, target, amplitude)
         zero = position_for_period(pend, name, target, 0.0)
-        summary = [Item("part", "part moved", name),
-                   Item("position_m", "new position (as the file gives it)", sol.position_m,
-                        "mm", 1e3, ".10g"),
-                   Item("centre_m", "its centre", sol.centre_m, "mm", 1e3, ".10g"),
+        summary = [Item("parts", "moved", ", ".join(sol.parts)),
+                   Item("position_m", f"new position of {sol.parts[0]} (as the file gives "
+                        "it)", sol.position_m, "mm", 1e3, ".10g"),
+                   Item("centre_m", f"{sol.parts[0]} centre", sol.centre_m, "mm", 1e3,
+                        ".10g"),
                    Item("move_m", "move (positive: away from the pivot)", sol.move_m, "mm",
                         1e3, ".6g"),
                    Item("period_s", "period there, recomputed", sol.period_s, "s", fmt=".13g"),
@@ -429,9 +430,10 @@ def sensitivity_report(design, amplitude: float | None = None) -> Report:
     summary = [Item("amplitude_deg", "at amplitude", _deg_value(a), "deg", fmt=amplitude_text),
                Item("period_s", "period", period_at(pend, a), "s", fmt=".10g")]
     if design.rating is not None:
-        adj = rating_adjustment(pend, design.rating.part, a, design.rating.nut_pitch_m)
+        adj = rating_adjustment(pend, design.rating.parts, a, design.rating.nut_pitch_m)
+        moved = " and ".join(design.rating.parts)
         summary.append(Item("rate_s_per_day_per_mm",
-                            f"rate change per mm the {design.rating.part} moves down",
+                            f"rate change per mm the {moved} move down",
                             adj["rate_s_per_day_per_mm"], "s/day", fmt=".5g"))
         if adj["rate_s_per_day_per_turn"] is not None:
             summary.append(Item("rate_s_per_day_per_turn",
