@@ -157,3 +157,28 @@ def test_amplitude_sensitivity_is_the_slope_of_the_circular_error():
     r = 1 + a * a / 16 + 11 * a ** 4 / 3072
     dr = a / 8 + 44 * a ** 3 / 3072
     assert s.relative == pytest.approx(a * dr / r, rel=1e-6)
+
+
+def test_rating_moves_the_bob_and_its_nut_together():
+    """Moving a point bob and a point nut (masses m_b, m_n at s_b, s_n) by x: the period
+    of the pair is 2 pi sqrt(I/(g sum m s)) with I = sum m s^2, so
+    d ln T/dx = (sum m s)/I - (sum m)/(2 sum m s) ... derived here:
+    d ln T/dx = (1/2)(2 sum m s / I - sum m / sum m s); rate = -86400 d ln T/dx."""
+    mb, sb, mn, sn = 2.0, 0.99, 0.05, 1.02
+    parts = [Part("bob", "point", position=sb, mass=mb),
+             Part("nut", "point", position=sn, mass=mn)]
+    pend = compound_pendulum(assemble(parts), G)
+    inertia = mb * sb ** 2 + mn * sn ** 2
+    moment = mb * sb + mn * sn
+    dlnt = 0.5 * (2 * moment / inertia - (mb + mn) / moment)
+    adj = rating_adjustment(pend, ("bob", "nut"), 0.0, nut_pitch=1e-3)
+    # central difference, relative step 1e-5: truncation ~1e-10 relative
+    assert adj["rate_s_per_day_per_mm"] == pytest.approx(-86400 * dlnt * 1e-3, rel=1e-8)
+    alone = rating_adjustment(pend, "bob", 0.0)
+    assert abs(alone["rate_s_per_day_per_mm"]) < abs(adj["rate_s_per_day_per_mm"])
+    sol = position_for_period(pend, ("bob", "nut"), 2.0, 0.0)
+    assert sol.parts == ("bob", "nut")
+    moved = [Part("bob", "point", position=sb + sol.move_m, mass=mb),
+             Part("nut", "point", position=sn + sol.move_m, mass=mn)]
+    assert compound_pendulum(assemble(moved), G).small_angle_period_s == pytest.approx(
+        2.0, rel=1e-12)
