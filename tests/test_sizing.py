@@ -160,10 +160,10 @@ def test_amplitude_sensitivity_is_the_slope_of_the_circular_error():
 
 
 def test_rating_moves_the_bob_and_its_nut_together():
-    """Moving a point bob and a point nut (masses m_b, m_n at s_b, s_n) by x: the period
-    of the pair is 2 pi sqrt(I/(g sum m s)) with I = sum m s^2, so
-    d ln T/dx = (sum m s)/I - (sum m)/(2 sum m s) ... derived here:
-    d ln T/dx = (1/2)(2 sum m s / I - sum m / sum m s); rate = -86400 d ln T/dx."""
+    """Moving a point bob and a point nut (masses m_b, m_n at s_b, s_n) together by x:
+    T = 2 pi sqrt(I/(g sum m s)) with I = sum m s^2, dI/dx = 2 sum m s and
+    d(sum m s)/dx = sum m, so d ln T/dx = (1/2)(2 sum m s / I - sum m / sum m s)
+    (derived here); the rate change is -86400 d ln T/dx."""
     mb, sb, mn, sn = 2.0, 0.99, 0.05, 1.02
     parts = [Part("bob", "point", position=sb, mass=mb),
              Part("nut", "point", position=sn, mass=mn)]
