@@ -277,10 +277,11 @@ def loads_report(design, amplitude: float | None = None,
     rows = tuple(zip(*[np.asarray(s, dtype=float).tolist() for s in series]))
     peaks = Table("peaks", "Peaks over the swing (largest magnitude, and where)",
                   (Column("quantity", "quantity"), Column("value", "value", fmt=".6g"),
+                   Column("unit", "unit"),
                    Column("angle_deg", "at angle", "deg", fmt=".5g"),
                    Column("angle_rad", "at angle", "rad", in_text=False)),
-                  tuple((p.quantity, p.value, p.angle_rad * _DEG, p.angle_rad)
-                        for p in loads.peaks))
+                  tuple((p.quantity, p.value, _unit_of(p.quantity), p.angle_rad * _DEG,
+                         p.angle_rad) for p in loads.peaks))
     summary = [Item("amplitude_deg", "amplitude", _deg_value(a), "deg", fmt=amplitude_text),
                Item("period_s", "period", period_at(pend, a), "s", fmt=".8g"),
                Item("energy_J", "swing energy", loads.energy_J, "J", fmt=".6g"),
@@ -291,14 +292,11 @@ def loads_report(design, amplitude: float | None = None,
                Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top",
                     loads.over_top_speed_rad_s, "rad/s", fmt=".5g"),
                Item("weight_N", "weight (static pivot load)", loads.weight_N, "N", fmt=".6g")]
-    if flexible:
-        summary.append(Item("slack_angle_deg", "suspension goes slack at",
-                            None if loads.slack_angle_rad is None
-                            else loads.slack_angle_rad * _DEG, "deg", fmt=".5g"))
-    else:
-        summary.append(Item("compression_angle_deg", "arm in compression beyond",
-                            None if loads.compression_angle_rad is None
-                            else loads.compression_angle_rad * _DEG, "deg", fmt=".5g"))
+    zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
+    summary.append(Item("slack_angle_deg" if flexible else "compression_angle_deg",
+                        "suspension goes slack at" if flexible else "arm in compression beyond",
+                        "never" if zero is None else zero * _DEG,
+                        "" if zero is None else "deg", fmt=".5g"))
     if design.impact is not None:
         summary += _impact_items(pend, design.impact)
     notes = ["Angles from the hanging position; pivot load is the force the pivot carries "
@@ -311,6 +309,15 @@ def loads_report(design, amplitude: float | None = None,
     return Report("loads", _title("Loads through the swing", design), _design_inputs(design),
                   summary, [table, peaks], notes=notes, warnings=list(loads.warnings),
                   cautions=cautions_for(design.context, loads=True))
+
+
+_UNITS = (("_rad_s2", "rad/s^2"), ("_rad_s", "rad/s"), ("_m_s", "m/s"), ("_N", "N"),
+          ("_g", "g"))
+
+
+def _unit_of(key: str) -> str:
+    """The display unit carried by a key's suffix (``reaction_N`` -> N)."""
+    return next((unit for suffix, unit in _UNITS if key.endswith(suffix)), "")
 
 
 def tune_report(design, target: float, amplitude: float, part: str | None) -> Report:
