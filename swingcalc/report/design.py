@@ -344,10 +344,11 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
                                + ", ".join(p.name for p in design.parts),
                                "required for a design of parts without a [rating] part")
         sol = position_for_period(pend, name, target, amplitude)
+        at = next(p.at for p in pend.body.inputs if p.name == sol.parts[0])
         zero = position_for_period(pend, name, target, 0.0)
         summary = [Item("parts", "moved", ", ".join(sol.parts)),
-                   Item("position_m", f"new position of {sol.parts[0]} (as the file gives "
-                        "it)", sol.position_m, "mm", 1e3, ".10g"),
+                   Item("position_m", f"new position of {sol.parts[0]} (its {at})",
+                        sol.position_m, "mm", 1e3, ".10g"),
                    Item("centre_m", f"{sol.parts[0]} centre", sol.centre_m, "mm", 1e3,
                         ".10g"),
                    Item("move_m", "move (positive: away from the pivot)", sol.move_m, "mm",
