@@ -335,8 +335,8 @@ CASES = [
           "mass is at nan m ...: the body does not hang below the pivot', naming no part "
           "or field"),
     C("tube-inner-equals-outer", [('shape = "rod"\nlength = "1000 mm"\ndiameter = "6 mm"',
-                                   'shape = "tube"\nlength = "1000 mm"\nouter_diameter = '
-                                   '"6 mm"\ninner_diameter = "6 mm"')],
+                                   ('shape = "tube"\nlength = "1000 mm"\nouter_diameter = '
+                                   '"6 mm"\ninner_diameter = "6 mm"'))],
       "part.rod.inner_diameter", "smaller than the outer diameter",
       at='inner_diameter = "6 mm"', got="'6 mm'", words=("no wall",),
       bug="reported as \"part 'rod': inner_diameter\" (not the path part.rod.inner_diameter), "
@@ -346,10 +346,10 @@ CASES = [
       got="'160 mm'",
       bug="reported as \"part 'bob': thickness\" without its line, value shown as the SI "
           "float 0.16 instead of '160 mm'"),
-    C("sphere-shell-without-wall", [('shape = "lens"\naxis = "pivot"\ndiameter = "150 mm"\n'
-                                     'thickness = "30 mm"',
-                                     'shape = "sphere"\ndiameter = "150 mm"\n'
-                                     'inner_diameter = "150 mm"')],
+    C("sphere-shell-without-wall", [(('shape = "lens"\naxis = "pivot"\ndiameter = "150 mm"\n'
+                                     'thickness = "30 mm"'),
+                                     ('shape = "sphere"\ndiameter = "150 mm"\n'
+                                     'inner_diameter = "150 mm"'))],
       "part.bob.inner_diameter", "an inner diameter in [0,", at='inner_diameter = "150 mm"',
       got="'150 mm'",
       bug="same as the tube: body-level path \"part 'bob': inner_diameter\", no line, SI "
@@ -441,8 +441,8 @@ CASES = [
     C("duplicate-part-name", [('name = "weight"', 'name = "rod"')], "part.rod.name",
       "a name no other part has", at=("name = \"rod\"", 2), got="'rod'",
       words=("two parts share this name",)),
-    C("duplicate-point-name", [("[swing]", '[[point]]\nname = "striker"\nalong = "900 mm"\n\n'
-                                           "[swing]")],
+    C("duplicate-point-name", [("[swing]", ('[[point]]\nname = "striker"\nalong = "900 mm"\n\n'
+                                           "[swing]"))],
       "point.striker.name", "a name no other point has", at=('name = "striker"', 2),
       got="'striker'", words=("two points share this name",)),
     C("part-name-reserved", [('name = "weight"', 'name = "suspension"')],
@@ -468,8 +468,8 @@ CASES = [
       got="'1 kg/m'"),
     C("flexible-without-length", [('kind = "rigid"', 'kind = "chain"')], "suspension.length",
       "a length > 0", at="[suspension]", got=None, words=("missing required field",)),
-    C("flexible-negative-mass-per-length", [('kind = "rigid"', 'kind = "chain"\nlength = '
-                                             '"1 m"\nmass_per_length = "-1 kg/m"')],
+    C("flexible-negative-mass-per-length", [('kind = "rigid"', ('kind = "chain"\nlength = '
+                                             '"1 m"\nmass_per_length = "-1 kg/m"'))],
       "suspension.mass_per_length", ">= 0", at='mass_per_length = "-1 kg/m"',
       words=("out of range",)),
     C("flexible-longer-than-the-body-hangs", [('kind = "rigid"',
@@ -549,8 +549,8 @@ CASES = [
       words=("out of range",)),
     C("humidity-negative", [('humidity = "40 %"', 'humidity = "-5 %"')],
       "environment.humidity", "[0, 100] %", at='humidity = "-5 %"', got="'-5 %'"),
-    C("pressure-out-of-range", [('humidity = "40 %"', 'humidity = "40 %"\npressure = '
-                                                      '"500 kPa"')],
+    C("pressure-out-of-range", [('humidity = "40 %"', ('humidity = "40 %"\npressure = '
+                                                      '"500 kPa"'))],
       "environment.pressure", "[10, 120] kPa", at='pressure = "500 kPa"', got="'500 kPa'"),
     C("gravity-negative", [(ENV, 'gravity = "-9.8 m/s^2"\n' + ENV)], "environment.gravity",
       "'standard'", at='gravity = "-9.8 m/s^2"', got="'-9.8 m/s^2'",
@@ -567,8 +567,8 @@ CASES = [
       got="'180 deg'", words=("out of range",)),
     C("amplitude-missing", [('amplitude = ["2 deg", "4 deg"]\n', "")], "swing.amplitude",
       "[0, 180) deg", at="[swing]", got=None, words=("missing required field",)),
-    C("swing-section-missing", [('[swing]\namplitude = ["2 deg", "4 deg"]\n'
-                                 'target_period = "2 s"\n', "")], "[swing]",
+    C("swing-section-missing", [(('[swing]\namplitude = ["2 deg", "4 deg"]\n'
+                                 'target_period = "2 s"\n'), "")], "[swing]",
       "a [swing] section with amplitude", got=None, words=("missing section",)),
     C("target-period-negative", [('target_period = "2 s"', 'target_period = "-2 s"')],
       "swing.target_period", "a period > 0", at='target_period = "-2 s"', got="'-2 s'"),
@@ -656,8 +656,8 @@ CASES = [
       bug="an unquoted dotted path becomes a TOML sub-table: reported as 'tolerances.part: "
           "no such quantity (got 'part')' without its line, suggesting the unrelated "
           "'part.rod.top' instead of saying the path must be in quotes"),
-    C("tolerances-given-as-a-value", [('context = "clock"', 'context = "clock"\n'
-                                                            'tolerances = "5 %"'),
+    C("tolerances-given-as-a-value", [('context = "clock"', ('context = "clock"\n'
+                                                            'tolerances = "5 %"')),
                                       ("[tolerances]\n" + BOB_TOLERANCES
                                        + '"environment.temperature" = "5 K"\n', "")],
       "tolerances", "a [tolerances] section", at='tolerances = "5 %"', got="'5 %'",
@@ -721,7 +721,7 @@ def check_message(msg: str, c: Case) -> None:
     assert "\n" not in msg and "\r" not in msg, msg
     bad = [ch for ch in msg if unicodedata.category(ch) in ("Cc", "Zl", "Zp")]
     assert not bad, f"raw control characters in the message: {bad!r}"
-    assert msg.startswith(FILE + ",") or msg.startswith(FILE + ":"), msg
+    assert msg.startswith((FILE + ",", FILE + ":")), msg
     assert not re.search(r"\w#\d", msg), f"internal section id in the message: {msg}"
     head, sep, allowed = msg.partition("; allowed: ")
     assert sep and allowed.strip(), f"does not say what is allowed: {msg}"
@@ -797,7 +797,7 @@ FILE_CASES = {"huge-file": _huge, "not-utf8": _not_utf8, "latin-1": _latin1,
 def test_unreadable_file_is_one_line_naming_it(tmp_path, monkeypatch, make):
     """Given as a short relative path, as a user usually types it."""
     monkeypatch.chdir(tmp_path)
-    path, words = make(tmp_path)
+    _path, words = make(tmp_path)
     with pytest.raises(InvalidInput) as err:
         load_design(FILE)
     msg = str(err.value)
