@@ -15,12 +15,12 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field, replace
 
-from ._validate import positive_scalar, real_scalar
+from ._validate import finite_result, positive_scalar, real_scalar
 from .errors import MISSING, InvalidInput
 from .kernels import inertia as _shape
 
 __all__ = ["SHAPE_SIZES", "ORIENTATIONS", "MOUNTS", "PIVOT_KINDS", "SUSPENSION_KINDS", "Part",
-           "Pivot", "Suspension",
+           "Pivot", "Suspension", "resolve_part",
            "PartProperties", "Body", "assemble", "point_bob", "scaled_for_temperature"]
 
 #: The size parameters [m] of each shape, in the order the shape kernel takes them.
@@ -229,8 +229,8 @@ def _where(p: Part, key: str) -> str:
     return f"part '{p.name}': {key}"
 
 
-def _resolve(p: Part) -> PartProperties:
-    """Validate one part and compute its properties."""
+def resolve_part(p: Part) -> PartProperties:
+    """Validate one part and compute its properties (errors name ``part '<name>': <field>``)."""
     if p.shape not in SHAPE_SIZES:
         from .quantity import suggest
 
@@ -295,6 +295,8 @@ def _resolve(p: Part) -> PartProperties:
                                "given for a shaped part (its shape fixes them)")
     own = mass * geo.gyration_sq
     s = position + {"centre": 0.0, "top": 0.5, "bottom": -0.5}[p.at] * geo.extent_s
+    finite_result((mass, volume, own, mass * (s * s + u * u)), _where(p, "size"),
+                  "sizes, masses and positions whose volume, mass and inertia are finite")
     return PartProperties(
         name=p.name, shape=p.shape, orientation=orientation, mass_kg=mass, volume_m3=volume,
         centre_along_m=s, centre_across_m=u, own_inertia_kg_m2=own,
@@ -402,7 +404,7 @@ def assemble(parts, suspension: Suspension | None = None,
     suspension = suspension or Suspension()
     if suspension.kind not in SUSPENSION_KINDS:
         raise InvalidInput("suspension", suspension.kind, " or ".join(SUSPENSION_KINDS))
-    resolved = [_resolve(p) for p in parts]
+    resolved = [resolve_part(p) for p in parts]
     if suspension.flexible:
         resolved.append(_line(suspension, names))
     mass = sum(p.mass_kg for p in resolved)

@@ -58,7 +58,8 @@ from functools import cached_property
 from pathlib import Path
 
 from .body import (MOUNTS, ORIENTATIONS, PIVOT_KINDS, SHAPE_SIZES, SUSPENSION_KINDS, Part,
-                   Pivot, Suspension, assemble, point_bob, scaled_for_temperature)
+                   Pivot, Suspension, assemble, point_bob, resolve_part,
+                   scaled_for_temperature)
 from .constants import STANDARD_GRAVITY
 from .errors import MISSING, InvalidInput
 from .quantity import parse_quantity, parse_values, suggest
@@ -299,7 +300,8 @@ class _Reader:
             for n in range(1, end):
                 if pattern and pattern.match(self.lines[n - 1]):
                     return n
-            return None
+            # a top-level key given as a [section] or [[section]] header
+            return next((n for n, sid in starts if sid in (key, f"{key}#0")), None)
         for i, (n, sid) in enumerate(starts):
             if sid != section:
                 continue
@@ -444,6 +446,8 @@ def parse_design(text: str, source: str = "<design>") -> Design:
     """
     import tomllib
 
+    if len(text) > _MAX_FILE_BYTES:
+        raise InvalidInput(source, MISSING, "a TOML design file under 1 MB", "too large")
     try:
         data = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
@@ -452,13 +456,14 @@ def parse_design(text: str, source: str = "<design>") -> Design:
     r.check_known("", data)
     shorthand = "pendulum" in data
     if shorthand:
-        for other in ("part", "suspension"):
+        for other, header in (("part", "[[part]]"), ("suspension", "[suspension]")):
             if other in data:
-                raise InvalidInput(r.where("", other) if r.line_of("", other)
-                                   else r.where(f"{other}#0" if other == "part" else other, ""),
+                n = r.line_of("part#0" if other == "part" else other, "")
+                raise InvalidInput(f"{source}, line {n}, {header}" if n
+                                   else f"{source}, {header}",
                                    MISSING, "either a [pendulum] section (a point bob) or "
                                    "[[part]] tables with a [suspension]",
-                                   f"both [pendulum] and [{other}] are given")
+                                   f"both [pendulum] and {header} are given")
         parts, suspension = _shorthand(r, r.table("pendulum"))
     else:
         suspension = _suspension(r, r.table("suspension"))
@@ -474,7 +479,7 @@ def parse_design(text: str, source: str = "<design>") -> Design:
     context = r.word("", data, "context", CONTEXTS, default="general")
     design = Design(
         name=r.text("", data, "name", Path(source).stem if source else "design"),
-        revision=r.text("", data, "revision", ""), date=r.text("", data, "date", ""),
+        revision=r.text("", data, "revision", ""), date=_date(r, data),
         context=context, parts=parts, suspension=suspension, pivot=pivot,
         amplitudes_rad=tuple(amplitudes), environment=env, points=points,
         arm_expansion_per_K=arm_expansion, target_period_s=target,
@@ -501,26 +506,36 @@ def point_design(length: float, mass: float = 1.0, suspension: str = "rigid",
                   environment=Environment(), shorthand=True)
 
 
+def _date(r: _Reader, data: dict) -> str:
+    """The design's date: a TOML date (2026-11-24) or a text, kept as text."""
+    import datetime
+
+    value = data.get("date", "")
+    if isinstance(value, (datetime.date, datetime.datetime, datetime.time)):
+        return value.isoformat()
+    return r.text("", data, "date", "")
+
+
 def load_design(path, source: str | None = None) -> Design:
     """Read and validate a design file (see :func:`parse_design`)."""
     p = Path(path)
     name = source or str(path)
     try:
         if p.stat().st_size > _MAX_FILE_BYTES:
-            raise InvalidInput("design file", name, "a TOML design file under 1 MB", "too large")
+            raise InvalidInput(name, MISSING, "a TOML design file under 1 MB", "too large")
         raw = p.read_bytes()
     except FileNotFoundError:
-        raise InvalidInput("design file", name, "a readable TOML design file",
+        raise InvalidInput(name, MISSING, "a readable TOML design file",
                            "no such file") from None
     except IsADirectoryError:
-        raise InvalidInput("design file", name, "a TOML design file", "is a directory") from None
+        raise InvalidInput(name, MISSING, "a TOML design file", "is a directory") from None
     except OSError as exc:
-        raise InvalidInput("design file", name, "a readable TOML design file",
+        raise InvalidInput(name, MISSING, "a readable TOML design file",
                            f"cannot read it ({exc.strerror or exc})") from None
     try:
         text = raw.decode("utf-8")
     except UnicodeDecodeError:
-        raise InvalidInput("design file", name, "a UTF-8 text file", "not UTF-8 text") from None
+        raise InvalidInput(name, MISSING, "a UTF-8 text file", "not UTF-8 text") from None
     return parse_design(text, name)
 
 
@@ -606,11 +621,10 @@ def _parts(r: _Reader, suspension: Suspension) -> tuple:
     parts, names = [], set()
     for i, t in enumerate(tables):
         sid = f"part#{i}"
-        name = t.get("name", f"part{i + 1}")
-        r.labels[sid] = f"part.{name}" if isinstance(name, str) else f"part[{i + 1}]"
+        r.labels[sid] = _label("part", t.get("name"), i)
         r.check_known(sid, t, "part")
         name = r.text(sid, t, "name", f"part{i + 1}")
-        if not re.fullmatch(r"[A-Za-z0-9][A-Za-z0-9 _\-]*", name) or name == "suspension":
+        if not _NAME.fullmatch(name) or name == "suspension":
             raise InvalidInput(r.where(sid, "name"), name,
                                "letters, digits, spaces, '_' and '-', not 'suspension'",
                                "not a usable part name")
@@ -618,8 +632,50 @@ def _parts(r: _Reader, suspension: Suspension) -> tuple:
             raise InvalidInput(r.where(sid, "name"), name, "a name no other part has",
                                "two parts share this name")
         names.add(name)
-        parts.append(_part(r, sid, t, name))
+        part = _part(r, sid, t, name)
+        try:
+            resolve_part(part)
+        except InvalidInput as exc:
+            raise _part_error(r, sid, t, part, exc) from None
+        parts.append(part)
+    _check_reach(r, parts, suspension)
     return tuple(parts)
+
+
+def _part_error(r: _Reader, sid: str, t: dict, part: Part, exc: InvalidInput) -> InvalidInput:
+    """A body-model error about a part, pointed at the file's field and its text."""
+    key = exc.field.split(": ", 1)[-1]
+    if key == "size":                  # about the part's sizes as a whole: the first one
+        key = next((k for k in SHAPE_SIZES[part.shape] if k in t), "shape")
+    if key not in t and key == "mass" and "density" in t:
+        key = "density"
+    value = t[key] if key in t else exc.value
+    return InvalidInput(r.where(sid, key) if key in t else r.where(sid, ""),
+                        value, exc.allowed, exc.problem)
+
+
+def _check_reach(r: _Reader, parts, suspension: Suspension) -> None:
+    """A flexible suspension must end within the payload (else it hangs slack past it)."""
+    if not suspension.flexible:
+        return
+    lowest = max(resolve_part(p).centre_along_m + 0.5 * resolve_part(p).extent_along_m
+                 for p in parts)
+    if suspension.length > lowest * (1.0 + 1e-12):
+        raise InvalidInput(r.where("suspension", "length"), r.data["suspension"]["length"],
+                           f"a length that ends at the payload, at most {lowest:.6g} m (the "
+                           "lowest point of the parts)",
+                           "the suspension would hang below every part")
+
+
+_NAME = re.compile(r"[A-Za-z0-9][A-Za-z0-9 _\-]*")
+
+
+def _label(kind: str, name, i: int) -> str:
+    """How a [[part]] or [[point]] table is named in messages: by its name when that is a
+    plain name, else by its place (a name with control characters never reaches a path)."""
+    if isinstance(name, str) and len(name) <= _MAX_TEXT_CHARS and _NAME.fullmatch(name):
+        return f"{kind}.{name}"
+    return f"{kind}[{i + 1}]" if name is not None else f"{kind}.{kind}{i + 1}"
 
 
 def _part(r: _Reader, sid: str, t: dict, name: str) -> Part:
@@ -673,7 +729,7 @@ def _part(r: _Reader, sid: str, t: dict, name: str) -> Part:
     mass = None
     if how == "mass":
         mass = r.quantity(sid, t, "mass", "a mass > 0, e.g. \"1.2 kg\"", **_POSITIVE)
-    elif how is None and shape in ("point", "custom"):
+    elif shape in ("point", "custom"):      # a density alone gives a point no mass
         r.required(sid, t, "mass", "a mass > 0, e.g. \"1.2 kg\"")
     elif how is None:
         r.required(sid, t, "material", "a material, a density or a mass")
@@ -696,11 +752,10 @@ def _points(r: _Reader, parts) -> tuple:
     out, names = [], set()
     for i, t in enumerate(r.tables("point")):
         sid = f"point#{i}"
-        name = t.get("name", f"point{i + 1}")
-        r.labels[sid] = f"point.{name}" if isinstance(name, str) else f"point[{i + 1}]"
+        r.labels[sid] = _label("point", t.get("name"), i)
         r.check_known(sid, t, "point")
         name = r.text(sid, t, "name")
-        if not re.fullmatch(r"[A-Za-z0-9][A-Za-z0-9 _\-]*", name):
+        if not _NAME.fullmatch(name):
             raise InvalidInput(r.where(sid, "name"), name,
                                "letters, digits, spaces, '_' and '-'", "not a usable name")
         if name in names:
@@ -842,8 +897,12 @@ def _tolerances(r: _Reader, t, data: dict) -> tuple:
                            "wrong type: expected a section")
     out = []
     allowed_paths = _tolerance_paths(data)
-    for path, value in t.items():
+    for path, value in _flatten(t):
         where = r.where("tolerances", path)
+        if r.line_of("tolerances", path) is None and "." in path:
+            n = r.line_of("tolerances", path.split(".")[0])
+            where = (f"{r.source}, line {n}, tolerances.{path}" if n
+                     else f"{r.source}, tolerances.{path}")
         if path not in allowed_paths:
             raise InvalidInput(where, path, "the path of a quantity in this file, e.g. "
                                "\"part.bob.mass\", \"environment.temperature\"",
@@ -851,13 +910,19 @@ def _tolerances(r: _Reader, t, data: dict) -> tuple:
         kind = allowed_paths[path]
         if kind == "temperature":
             kind = "temperature_difference"
-        allowed = f"a +- half-width >= 0 as {kind.replace('_', ' ')} or a percentage"
-        if isinstance(value, bool) or not isinstance(value, (str, int, float)):
+        allowed = (f"a +- half-width >= 0 as {kind.replace('_', ' ')} with its unit, or a "
+                   "percentage, in quotes: \"0.5 mm\", \"1 %\"")
+        if not isinstance(value, str):
             raise InvalidInput(where, value, allowed,
-                               "wrong type: expected a quantity string such as \"0.5 mm\"")
-        text = str(value).strip().lstrip("±").strip()
+                               "wrong type: expected a quantity string with a unit")
+        text = value.strip().lstrip("±").strip()
         if text.startswith("+-") or text.startswith("+/-"):
             text = text.split("-", 1)[1].strip()
+        from .quantity import split_magnitude
+
+        if not split_magnitude(text, where, allowed)[1]:
+            raise InvalidInput(where, value, allowed,
+                               "a bare number is ambiguous here: give its unit or a %")
         if text.endswith("%") or text.endswith("ppm"):
             v = parse_quantity(text, "fraction", where, allowed=allowed, minimum=0.0,
                                maximum=1.0)
@@ -866,6 +931,17 @@ def _tolerances(r: _Reader, t, data: dict) -> tuple:
             v = parse_quantity(text, kind, where, allowed=allowed, minimum=0.0)
             out.append(Tolerance(path, v, False))
     return tuple(out)
+
+
+def _flatten(table: dict, prefix: str = ""):
+    """(dotted path, value) pairs: `part.bob.mass = ...` written without quotes is the
+    same TOML as the quoted path, as nested tables."""
+    for key, value in table.items():
+        path = f"{prefix}{key}"
+        if isinstance(value, dict):
+            yield from _flatten(value, path + ".")
+        else:
+            yield path, value
 
 
 def _tolerance_paths(data: dict) -> dict:

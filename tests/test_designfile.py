@@ -166,3 +166,10 @@ def test_gravity_word_any_case_and_wrong_type():
     assert d.gravity_m_s2 == STANDARD_GRAVITY and d.environment.gravity_given == "standard"
     msg = _error(_with('gravity = "9.81 m/s^2"', "gravity = true"))
     assert "environment.gravity" in msg and "wrong type" in msg
+
+
+def test_a_toml_date_is_taken_as_the_design_date():
+    """A bare TOML date (RFC 3339 full-date, TOML 1.0 "Local Date") is a date: kept as its
+    ISO text, as a quoted date would be."""
+    d = parse_design('date = 2026-11-24\n' + GOOD, "arm.toml")
+    assert d.date == "2026-11-24"

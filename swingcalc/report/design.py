@@ -295,8 +295,8 @@ def loads_report(design, amplitude: float | None = None,
     zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
     summary.append(Item("slack_angle_deg" if flexible else "compression_angle_deg",
                         "suspension goes slack at" if flexible else "arm in compression beyond",
-                        "never" if zero is None else zero * _DEG,
-                        "" if zero is None else "deg", fmt=".5g"))
+                        None if zero is None else zero * _DEG, "deg", fmt=".5g",
+                        missing="never"))
     if design.impact is not None:
         summary += _impact_items(pend, design.impact)
     notes = ["Angles from the hanging position; pivot load is the force the pivot carries "
@@ -358,8 +358,7 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
                         zero.position_m, "mm", 1e3, ".10g")]
         if sol.other_positions_m:
             summary.append(Item("other_positions_m", "other positions with the same period",
-                                ", ".join(f"{x * 1e3:.6g}" for x in sol.other_positions_m),
-                                "mm"))
+                                list(sol.other_positions_m), "mm", 1e3, ".10g"))
         notes = ["The period includes the air's buoyancy and added mass when air is on, and "
                  "the part positions at the working temperature."]
     return Report("tune", _title("Tuning for a target period", design), inputs, summary, [],

@@ -31,6 +31,9 @@ def show_value(value, scale: float = 1.0, fmt=".6g", unit: str = "",
         return missing
     if isinstance(value, bool):
         return "yes" if value else "no"
+    if isinstance(value, (list, tuple)):
+        shown = ", ".join(show_value(v, scale, fmt, "", missing) for v in value)
+        return f"{shown} {unit}".rstrip() if unit else shown
     if isinstance(value, str):
         return value
     v = float(value) * scale
@@ -70,10 +73,12 @@ class Item:
     unit: str = ""          # display unit
     scale: float = 1.0      # SI value * scale = display value
     fmt: object = ".6g"     # format spec, or a function of the display value
+    missing: str = "-"      # shown for a value of None (JSON has null)
 
     @property
     def shown(self) -> str:
-        return show_value(self.value, self.scale, self.fmt, self.unit)
+        return show_value(self.value, self.scale, self.fmt,
+                          "" if self.value is None else self.unit, self.missing)
 
 
 @dataclass(frozen=True)
