@@ -141,6 +141,7 @@ class Suspension:
     kind: str = "rigid"
     length: float = 0.0              # [m], flexible only
     mass_per_length: float = 0.0     # [kg/m], flexible only
+    expansion: float = 0.0           # [1/K], flexible only: the line's own expansion
 
     @property
     def flexible(self) -> bool:
@@ -451,15 +452,16 @@ def _line(susp: Suspension, names) -> PartProperties:
         name="suspension", shape="line", orientation=None, mass_kg=m, volume_m3=0.0,
         centre_along_m=0.5 * L, centre_across_m=0.0, own_inertia_kg_m2=m * L * L / 12.0,
         inertia_pivot_kg_m2=m * L * L / 3.0, frontal_area_m2=0.0, frontal_width_m=0.0,
-        extent_along_m=L, extent_across_m=0.0, expansion_per_K=0.0, mount="top",
+        extent_along_m=L, extent_across_m=0.0, expansion_per_K=susp.expansion, mount="top",
         material=susp.kind, size_m={"length": L})
 
 
 def _default_arm_expansion(parts) -> float:
-    arms = [p for p in parts if p.shape in ("rod", "tube", "flat_bar")]
+    """The longest rod, tube or flat bar sets the mounts; else a flexible line; else 0."""
+    arms = [p for p in parts if p.shape in ("rod", "tube", "flat_bar", "line")]
     if not arms:
         return 0.0
-    return max(arms, key=lambda p: p.extent_along_m).expansion_per_K
+    return max(arms, key=lambda p: (p.shape != "line", p.extent_along_m)).expansion_per_K
 
 
 def scaled_for_temperature(body: Body, delta_t: float, parts=None) -> Body:

@@ -82,7 +82,7 @@ _SCHEMA = {
          "part", "point", "swing", "environment", "impact", "rating", "tolerances"),
     "pendulum": ("length", "bob_mass", "suspension"),
     "pivot": ("kind", "diameter", "friction", "static_friction", "torque"),
-    "suspension": ("kind", "length", "mass_per_length"),
+    "suspension": ("kind", "length", "mass_per_length", "material", "expansion"),
     "arm": ("material", "expansion"),
     "part": _PART_KEYS,
     "point": ("name", "along", "across"),
@@ -97,7 +97,8 @@ _KIND = {
     "pendulum": {"length": "length", "bob_mass": "mass"},
     "pivot": {"diameter": "length", "friction": "fraction", "static_friction": "fraction",
               "torque": "torque"},
-    "suspension": {"length": "length", "mass_per_length": "linear_density"},
+    "suspension": {"length": "length", "mass_per_length": "linear_density",
+                   "expansion": "expansion"},
     "part": {**{k: "length" for k in _SIZE_KEYS + ("centre", "top", "bottom", "across")},
              "density": "density", "mass": "mass", "expansion": "expansion",
              "inertia": "inertia", "volume": "volume"},
@@ -551,7 +552,7 @@ def _shorthand(r: _Reader, pend: dict):
 def _suspension(r: _Reader, t: dict) -> Suspension:
     kind = r.word("suspension", t, "kind", SUSPENSION_KINDS, default="rigid")
     if kind == "rigid":
-        for key in ("length", "mass_per_length"):
+        for key in ("length", "mass_per_length", "material", "expansion"):
             if key in t:
                 raise InvalidInput(r.where("suspension", key), t[key],
                                    "no length or mass per length for a rigid arm (its parts "
@@ -561,7 +562,15 @@ def _suspension(r: _Reader, t: dict) -> Suspension:
                         "a length > 0 from the pivot to the payload attachment", **_POSITIVE)
     lam = r.quantity("suspension", t, "mass_per_length", "a mass per length >= 0, e.g. "
                      "\"0.9 kg/m\"", default=0.0, minimum=0.0)
-    return Suspension(kind, length=length, mass_per_length=lam)
+    expansion = 0.0
+    key = r.exclusive("suspension", t, ("material", "expansion"), "the line's expansion",
+                      required=False)
+    if key == "material":
+        expansion = _material(r, "suspension", t).expansion_per_K
+    elif key == "expansion":
+        expansion = r.quantity("suspension", t, "expansion", "a coefficient in (-1e-3, 1e-3) "
+                               "1/K, e.g. \"12e-6 /K\"", minimum=-1e-3, maximum=1e-3)
+    return Suspension(kind, length=length, mass_per_length=lam, expansion=expansion)
 
 
 def _pivot(r: _Reader, t: dict) -> Pivot:
@@ -718,8 +727,14 @@ def _part(r: _Reader, sid: str, t: dict, name: str) -> Part:
                         default=0.0)
     mount = r.word(sid, t, "mount", MOUNTS, default=at)
     density, expansion, material_name = None, 0.0, ""
-    how = r.exclusive(sid, t, ("mass", "density", "material"), "the part's mass",
-                      required=False)
+    if shape in ("point", "custom"):
+        # the mass is given; a density or material may say what volume it displaces
+        r.exclusive(sid, t, ("density", "material", "volume"), "the displaced volume",
+                    required=False)
+        how = "mass" if "mass" in t else None
+    else:
+        how = r.exclusive(sid, t, ("mass", "density", "material"), "the part's mass",
+                          required=False)
     if "material" in t:
         mat = _material(r, sid, t)
         density, expansion, material_name = mat.density_kg_m3, mat.expansion_per_K, mat.name

@@ -125,7 +125,9 @@ class SwingLoads:
 
 def _kinematics(pend: CompoundPendulum, amplitude: float, theta):
     k = pend.restoring_moment_N_m / pend.inertia_kg_m2
-    # cos(theta) - cos(A) = 2 (sin^2(A/2) - sin^2(theta/2)): no cancellation near theta = A.
+    # cos(theta) - cos(A) = 2 (sin^2(A/2) - sin^2(theta/2)): exact at small amplitudes
+    # (the cosine form loses 1 - cos A there); next to the turning point the difference
+    # of squares still loses ~eps / (1 - theta/A), harmless for loads.
     diff = 2.0 * (math.sin(0.5 * amplitude) ** 2 - np.sin(0.5 * theta) ** 2)
     omega2 = np.maximum(2.0 * k * diff, 0.0)
     return omega2, -k * np.sin(theta)
