@@ -830,7 +830,7 @@ class _Run:
                 f1 = ds.component(j, 1.0) - level
                 if f0 == 0.0 or (f0 > 0.0) == (f1 > 0.0):
                     return None
-                return _k.find_root(lambda x, ds=ds: ds.component(j, x) - level, 0.0, 1.0,
+                return _k.find_root(lambda u, ds=ds: ds.component(j, u) - level, 0.0, 1.0,
                                     f0, f1)
 
             if flags & 1:
