@@ -1188,9 +1188,9 @@ def _summary(run: _Run, hist, cycles: CycleTable, target, frac, settle, final_t)
                 else:
                     w = 1.0
                 decay_t = float(turns_t[k - 1] + w * (turns_t[k] - turns_t[k - 1]))
-            ups = np.array([b[0] for b in run.bottoms if b[1] > 0])
-            if ups.size >= 2:
-                decay_n = float(np.interp(decay_t, ups, np.arange(ups.size)))
+            # in periods from the start (the mean period of the cycles run)
+            mean_T = float(np.mean(period)) if n else 2.0 * math.pi / run.w0
+            decay_n = decay_t / mean_T
     steady = settled = settle_t = None
     if (run.impulses or run.timed) and n >= 4:
         a_pos = col["amplitude_positive_rad"]

@@ -319,6 +319,11 @@ def motion(angle: Annotated[str, typer.Option(
     _emit(report, kind, path, force)
 
 
+from .simulate import register as _register_simulate  # noqa: E402 (needs app defined)
+
+_register_simulate(app)
+
+
 def main(argv=None) -> None:
     """Console-script entry point."""
     try:
