@@ -380,6 +380,12 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
                        "can hold the body at its turning point (stick-slip); use simulate")
             break
         L1 = tables.loss(u)
+        if L1 >= 0.5 * E:
+            # the beat would lose most of its energy: the body stops within it (friction)
+            ok_assumptions = False
+            message = (f"stopped after {k} beats at amplitude {A:.6g} rad: the body stops "
+                       "within the next beat (stick-slip or heavy damping); use simulate")
+            break
         if L1 * q_limit > math.pi * E and ok_assumptions:
             ok_assumptions = False
             warnings.append(f"beat {k + 1}: Q = {math.pi * E / L1:.4g} below {q_limit:g} at "
