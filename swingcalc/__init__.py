@@ -22,6 +22,9 @@ from .linear import (
     small_angle_period_error,
 )
 from .pendulum import SimplePendulum, simple_pendulum, slack_angle
+from .simulate import (HarmonicTorque, ImpulseDrive, PivotMotion, SimulationResult,
+                       SwingModel, drag_moment_coefficient, simulate)
+from .averaged import AveragedResult, averaged, beat_losses
 from .swing import (
     Regime,
     SwingState,
@@ -86,4 +89,15 @@ __all__ = [
     "SimplePendulum",
     "simple_pendulum",
     "slack_angle",
+    # damped, driven motion
+    "SwingModel",
+    "HarmonicTorque",
+    "PivotMotion",
+    "ImpulseDrive",
+    "SimulationResult",
+    "simulate",
+    "drag_moment_coefficient",
+    "AveragedResult",
+    "averaged",
+    "beat_losses",
 ]

@@ -150,8 +150,7 @@ class _Table:
     def __call__(self, u):
         x = u * self.inv_h
         i = int(x)
-        if i > self.last:
-            i = self.last
+        i = min(i, self.last)
         f = x - i
         return self.c0[i] + f * (self.c1[i] + f * (self.c2[i] + f * self.c3[i]))
 
@@ -315,8 +314,12 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
     target = (model.small_angle_period if target_period is None
               else positive_scalar(target_period, "target_period", "s"))
     if duration is not None:
+        from .kernels import swing as _ks
+
         T = positive_scalar(duration, "duration", "s")
-        n_beats = int(math.ceil(T / (0.5 * model.small_angle_period)))
+        beat0 = 0.5 * model.small_angle_period * (
+            1.0 if model.linear else float(_ks.period_ratio(math.cos(0.5 * A0) ** 2)))
+        n_beats = math.ceil(T / beat0)
     else:
         n = real_scalar(beats if beats is not None else cycles,
                         "beats" if beats is not None else "cycles",
@@ -338,7 +341,7 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
         hold, text = _forcing_check(model, dr, A0)
         ok_assumptions &= hold
         warnings.append(text)
-    M, I = model.restoring_moment, model.inertia
+    M = model.restoring_moment
     lin = model.linear
 
     def energy_of(A):

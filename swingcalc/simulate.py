@@ -167,7 +167,7 @@ class SwingModel:
         --------
         >>> m = SwingModel.simple(0.994, 1.2)
         >>> round(m.small_angle_period, 6)
-        2.000086
+        2.000381
         """
         L = positive_scalar(length, "length", "m")
         mm = positive_scalar(mass, "mass", "kg")
@@ -601,9 +601,12 @@ class _Run:
         self.h_th.append(th)
         self.h_om.append(om)
         if len(self.h_t) > self.max_history:
-            for arr in (self.h_t, self.h_th, self.h_om):
-                del arr[1::2]
-            self.stride *= 2
+            self.thin_history()
+
+    def thin_history(self):
+        for arr in (self.h_t, self.h_th, self.h_om):
+            del arr[1::2]
+        self.stride *= 2
 
     # -- main loop
     def run(self):
@@ -714,26 +717,33 @@ class _Run:
         friction = self.friction
         stop_amp = self.stop_amplitude
         want_cycles = self.max_cycles
-        prev = {"t": self.t, "y": self.y.copy()}
-        counters = {"n": 0, "up": self.up_count}
+        prev_t = self.t
+        prev_y = self.y.copy()
+        n = 0
+        up = self.up_count
         interrupt = self.interrupt
         progress = self.progress
-        hist_every = self.history_every
+        hist_every = self.stride
+        h_t, h_th, h_om = self.h_t, self.h_th, self.h_om
+        cap = self.max_history
+        peak = self.peak_speed
+        state = rhs.state
         run = self
 
         def solout(x, y):
+            nonlocal prev_t, prev_y, n, up, peak, progress, hist_every
             try:
                 th = y[0]
                 w = y[1]
-                py = prev["y"]
+                py = prev_y
                 pth = py[0]
                 pw = py[1]
-                n = counters["n"] = counters["n"] + 1
-                if n == 1 and x == prev["t"]:
+                n += 1
+                if n == 1 and x == prev_t:
                     return 1
                 flags = 0
                 # bottom passages (wrapped onto the nearest 2 pi k near a full turn)
-                if abs(th) < 3.0 and abs(pth) < 3.0:
+                if -3.0 < th < 3.0 and -3.0 < pth < 3.0:
                     a_th, a_pth = th, pth
                 else:
                     k = round(th / _TWO_PI)
@@ -741,10 +751,10 @@ class _Run:
                     if abs(th) > math.pi or abs(pth) > math.pi:
                         run.over_top = True
                 if ((a_pth < 0.0 <= a_th) or (a_pth > 0.0 >= a_th)) and abs(a_th - a_pth) < 3.0:
-                    flags |= 1
+                    flags = 1
                     if a_pth < 0.0:
-                        counters["up"] += 1
-                        if want_cycles is not None and counters["up"] > want_cycles:
+                        up += 1
+                        if want_cycles is not None and up > want_cycles:
                             flags |= 16
                 if (pw < 0.0 <= w) or (pw > 0.0 >= w):
                     flags |= 2
@@ -753,16 +763,24 @@ class _Run:
                 for a, dn, _ in impulses:
                     if (dn > 0 and pth < a <= th) or (dn < 0 and pth > a >= th):
                         flags |= 4
+                yc = y.copy()
                 if flags:
-                    brackets.append((prev["t"], py, x, y.copy(), flags))
-                om_abs = abs(w) * w0
-                run.peak_speed = max(run.peak_speed, om_abs)
+                    brackets.append((prev_t, py, x, yc, flags))
+                om = w * w0
+                if om > peak or -om > peak:
+                    peak = abs(om)
+                    run.peak_speed = peak
                 if n % hist_every == 0:
-                    run.record(x, th, w * w0)
-                run.last_h = x - prev["t"]
-                prev["t"] = x
-                prev["y"] = y.copy()
-                if rhs.state["failed"]:
+                    h_t.append(x)
+                    h_th.append(th)
+                    h_om.append(om)
+                    if len(h_t) > cap:
+                        run.thin_history()
+                        hist_every = run.stride
+                run.last_h = x - prev_t
+                prev_t = x
+                prev_y = yc
+                if state["failed"]:
                     return -1
                 if n & 255 == 0:
                     if interrupt.flag:
@@ -772,18 +790,14 @@ class _Run:
                         if now - run._clock > 0.1:
                             run._clock = now
                             try:
-                                progress(x, run.t_end, counters["up"], want_cycles)
+                                progress(x, run.t_end, up, want_cycles)
                             except Exception:  # noqa: BLE001 - a display must not stop a run
                                 run.progress = None
-                                progress_off()
-                return -1 if flags & (4 | 8 | 16) else 1
+                                progress = None
+                return -1 if flags & 28 else 1
             except Exception:  # noqa: BLE001 - never raise inside the compiled stepper
-                rhs.state["failed"] = True
+                state["failed"] = True
                 return -1
-
-        def progress_off():
-            nonlocal progress
-            progress = None
 
         first = min(self.last_h, self.max_step) if self.last_h > 0 else 0.0
         stepper = ode(rhs).set_integrator("dop853", rtol=self.rtol, atol=self.atol,
@@ -799,9 +813,9 @@ class _Run:
             self.status = Status.FAILED
             self.message = ("the integrator failed (" + ("a non-finite state" if
                             rhs.state["failed"] else f"DOP853 code {idid}") +
-                            f") at t = {float(prev['t']):.9g} s")
-            self.t = float(prev["t"])
-            self.y = np.asarray(prev["y"], dtype=float).copy()
+                            f") at t = {float(prev_t):.9g} s")
+            self.t = float(prev_t)
+            self.y = np.asarray(prev_y, dtype=float).copy()
             return None
         action = self._events(brackets, rhs, s)
         if action is not None:
@@ -822,7 +836,7 @@ class _Run:
                 # an action may follow: the step's own 7th-order dense output
                 ds = _k.replay_step(rhs, t_a, np.asarray(y_a, dtype=float), t_b - t_a)
             else:
-                ds = _k.hermite_step(rhs, t_a, y_a, t_b, y_b)
+                ds = _k.hermite_step(rhs, t_a, y_a, t_b, y_b, self.w0)
             found = []   # (t, x, kind, data)
 
             def root(j, level, ds=ds, y_a=y_a):
@@ -875,10 +889,13 @@ class _Run:
                 elif kind == "turn":
                     y[1] = 0.0
                     th = float(y[0])
-                    self.turns.append((t, th, self.ledger(y), self.energy_of(y)))
+                    # the amplitude is measured from the nearest bottom (after turns over
+                    # the top the angle is unwrapped)
+                    th_w = th - _TWO_PI * round(th / _TWO_PI) if abs(th) > math.pi else th
+                    self.turns.append((t, th_w, self.ledger(y), self.energy_of(y)))
                     if self.friction and s is not None:
                         return self._switch(t, y, s)
-                    if self.stop_amplitude is not None and abs(th) < self.stop_amplitude:
+                    if self.stop_amplitude is not None and abs(th_w) < self.stop_amplitude:
                         self.status = Status.STOPPED
                         self.message = (f"stopped at the turning point t = {t:.9g} s: "
                                         f"amplitude below {self.stop_amplitude:.6g} rad")

@@ -8,7 +8,13 @@ import numpy as np
 import pytest
 
 from swingcalc.averaged import averaged, beat_losses
-from swingcalc.simulate import HarmonicTorque, ImpulseDrive, PivotMotion, SwingModel, simulate
+from swingcalc.simulate import (
+    HarmonicTorque,
+    ImpulseDrive,
+    PivotMotion,
+    SwingModel,
+    simulate,
+)
 
 G = 9.80665
 

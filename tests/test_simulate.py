@@ -10,8 +10,13 @@ import numpy as np
 import pytest
 
 from swingcalc import InvalidInput, period
-from swingcalc.simulate import (HarmonicTorque, ImpulseDrive, PivotMotion, SwingModel,
-                                simulate)
+from swingcalc.simulate import (
+    HarmonicTorque,
+    ImpulseDrive,
+    PivotMotion,
+    SwingModel,
+    simulate,
+)
 
 G = 9.80665
 

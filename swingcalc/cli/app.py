@@ -319,7 +319,7 @@ def motion(angle: Annotated[str, typer.Option(
     _emit(report, kind, path, force)
 
 
-from .simulate import register as _register_simulate  # noqa: E402 (needs app defined)
+from .simulate import register as _register_simulate
 
 _register_simulate(app)
 

@@ -16,7 +16,7 @@ from __future__ import annotations
 import math
 import sys
 from pathlib import Path
-from typing import Annotated, Optional
+from typing import Annotated
 
 import typer
 
@@ -25,7 +25,7 @@ from . import options as opt
 
 __all__ = ["register"]
 
-_Text = Optional[str]
+_Text = str | None
 
 
 def _opt(name: str, metavar: str, help_text: str):
@@ -227,7 +227,7 @@ def register(app) -> None:
 
     @app.command("simulate")
     def simulate(
-        design: Annotated[Optional[Path], typer.Argument(
+        design: Annotated[Path | None, typer.Argument(
             metavar="[DESIGN.toml]", help="Design file (not read yet: use the options).",
             show_default=False)] = None,
         length: opt.Length = None, mass: opt.Mass = None, gravity: opt.Gravity = None,

@@ -15,8 +15,8 @@ import numpy as np
 from .cautions import cautions_for
 from .model import Column, Item, Report, Table
 
-__all__ = ["simulation_report", "averaged_report", "cycles_report", "history_report",
-           "averaged_cycles_report", "SAMPLE_ROWS"]
+__all__ = ["SAMPLE_ROWS", "averaged_cycles_report", "averaged_report", "cycles_report",
+           "history_report", "simulation_report"]
 
 _DEG = 180.0 / math.pi
 #: The main report shows the first and last this many cycles (the file has all).
@@ -130,10 +130,10 @@ def simulation_report(result, context: str = "general") -> Report:
     """Summary, energy budget and a sample of the per-cycle table of a simulation."""
     s = result.summary
     e = result.energy
-    ang = dict(unit="deg", scale=_DEG, fmt=".6g")
+    ang = {"unit": "deg", "scale": _DEG, "fmt": ".6g"}
     summary = [Item("status", "status", result.status),
                Item("duration_s", "simulated time", s.duration_s, "s", fmt=".9g"),
-               Item("cycles", "complete cycles", s.cycles, fmt="d" if False else ".0f"),
+               Item("cycles", "complete cycles", s.cycles, fmt=".0f"),
                Item("initial_amplitude_rad", "start amplitude", s.initial_amplitude_rad, **ang),
                Item("final_amplitude_rad", "last amplitude", s.final_amplitude_rad, **ang),
                Item("first_period_s", "first period", s.first_period_s, "s", fmt=".10g"),
@@ -192,10 +192,11 @@ def simulation_report(result, context: str = "general") -> Report:
     if s.over_the_top:
         warnings.append("the body went over the top: amplitudes are not defined there")
     notes = [result.message,
-             "Q is that of the linear oscillator with the measured logarithmic decrement, "
-             "sqrt(4 pi^2 + delta^2) / (2 delta); loss Q is 2 pi E / energy dissipated per "
-             "cycle. The rate is (target / period - 1) x 86400 s/day (positive: gaining)."]
-    return Report("simulate", f"Damped, driven swing{': ' + result.model.name if result.model.name else ''}",
+             ("Q is that of the linear oscillator with the measured logarithmic decrement, "
+              "sqrt(4 pi^2 + delta^2) / (2 delta); loss Q is 2 pi E / energy dissipated per "
+              "cycle. The rate is (target / period - 1) x 86400 s/day (positive: gaining).")]
+    name = result.model.name
+    return Report("simulate", "Damped, driven swing" + (f": {name}" if name else ""),
                   inputs, summary, tables, notes=notes, warnings=warnings,
                   cautions=cautions_for(context, loads=True))
 
@@ -223,7 +224,7 @@ def history_report(result) -> Report:
 def averaged_report(result, context: str = "general") -> Report:
     """Summary and a sample of the per-cycle table of the cycle-averaged model."""
     s = result.summary
-    ang = dict(unit="deg", scale=_DEG, fmt=".6g")
+    ang = {"unit": "deg", "scale": _DEG, "fmt": ".6g"}
     summary = [Item("model", "model", "cycle-averaged (beat by beat)"),
                Item("assumptions_hold", "assumptions hold", result.assumptions_hold),
                Item("beats", "beats", s.get("beats"), fmt=".0f"),
@@ -258,10 +259,10 @@ def averaged_report(result, context: str = "general") -> Report:
         tables.append(_table("cycles", title, cols, range(len(idx))))
     warnings = list(result.warnings)
     notes = [result.message,
-             "Cycle-averaged model: losses over the exact conservative orbit at each beat's "
-             "amplitude, the push's energy per beat, the exact period at that amplitude. "
-             "Where the assumptions fail (low Q, forcing near resonance, stick-slip) use the "
-             "full integrator (swingcalc simulate without --averaged)."]
+             ("Cycle-averaged model: losses over the exact conservative orbit at each beat's "
+              "amplitude, the push's energy per beat, the exact period at that amplitude. "
+              "Where the assumptions fail (low Q, forcing near resonance, stick-slip) use the "
+              "full integrator (swingcalc simulate without --averaged).")]
     return Report("simulate", "Cycle-averaged long run", inputs, summary, tables, notes=notes,
                   warnings=warnings, cautions=cautions_for(context, loads=True))
 
