@@ -60,6 +60,9 @@ from .linear import (
 )
 from .materials import MATERIALS, Material, material
 from .pendulum import SimplePendulum, simple_pendulum, slack_angle
+from .simulate import (HarmonicTorque, ImpulseDrive, PivotMotion, SimulationResult,
+                       SwingModel, drag_moment_coefficient, simulate)
+from .averaged import AveragedResult, averaged, beat_losses
 from .swing import (
     Regime,
     SwingState,
@@ -170,4 +173,15 @@ __all__ = [
     "sphere_drag_coefficient",
     "cylinder_drag_coefficient",
     "friction_drag_coefficient",
+    # damped, driven motion
+    "SwingModel",
+    "HarmonicTorque",
+    "PivotMotion",
+    "ImpulseDrive",
+    "SimulationResult",
+    "simulate",
+    "drag_moment_coefficient",
+    "AveragedResult",
+    "averaged",
+    "beat_losses",
 ]

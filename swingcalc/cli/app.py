@@ -328,8 +328,10 @@ def motion(angle: Annotated[str, typer.Option(
 
 
 from . import designs as _designs  # noqa: E402 - registers the design commands on the app
+from .simulate import register as _register_simulate  # noqa: E402 - the simulate command
 
 _designs.register(app)
+_register_simulate(app)
 
 
 def main(argv=None) -> None:

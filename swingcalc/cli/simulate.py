@@ -1,0 +1,429 @@
+"""The ``simulate`` command: damped, driven motion of a simple pendulum or a given body.
+
+``register(app)`` adds the command to the one typer app (``cli/app.py`` calls it). The
+command only parses options, calls the library and a report builder, and writes the
+report, the per-cycle table (``--cycles-file``) and the time history
+(``--history-file``). Ctrl-C keeps what was computed: it is reported and written, and the
+exit status is 130.
+
+Design files: the hook is :func:`_model_from_design` (not wired yet; the design-file
+module is being rewritten). For now a simple pendulum from --length/--mass, or a given
+body from --inertia/--com-distance/--mass.
+"""
+
+from __future__ import annotations
+
+import math
+import sys
+from pathlib import Path
+from typing import Annotated
+
+import typer
+
+from ..errors import MISSING, InvalidInput
+from . import options as opt
+
+__all__ = ["register"]
+
+_Text = str | None
+
+
+def _opt(name: str, metavar: str, help_text: str):
+    return typer.Option(name, metavar=metavar, help=help_text)
+
+
+# Units accepted for quantities that swingcalc.quantity has no kind for (SI factor).
+_UNITS = {
+    "inertia": ("kg m^2", {"": 1.0, "kg m^2": 1.0, "kg*m^2": 1.0, "kg m2": 1.0,
+                           "g cm^2": 1e-7}),
+    "torque": ("N m", {"": 1.0, "N m": 1.0, "N*m": 1.0, "Nm": 1.0, "mN m": 1e-3,
+                       "N mm": 1e-3}),
+    "energy": ("J", {"": 1.0, "J": 1.0, "mJ": 1e-3, "uJ": 1e-6, "µJ": 1e-6}),
+    "impulse": ("N m s", {"": 1.0, "N m s": 1.0, "N*m*s": 1.0, "mN m s": 1e-3}),
+    "viscous": ("N m s", {"": 1.0, "N m s": 1.0, "N*m*s": 1.0}),
+    "drag": ("N m s^2", {"": 1.0, "N m s^2": 1.0, "N*m*s^2": 1.0, "kg m^2": 1.0}),
+    "frequency": ("Hz", {"": 2.0 * math.pi, "Hz": 2.0 * math.pi, "rad/s": 1.0,
+                         "rpm": 2.0 * math.pi / 60.0}),
+}
+
+
+def _si(text: str, kind: str, field: str, positive: bool = True) -> float:
+    """A number with an optional unit from the small table above -> SI."""
+    from ..quantity import split_magnitude, suggest
+
+    unit_word, table = _UNITS[kind]
+    allowed = (f"a number {'> 0' if positive else '>= 0'} in {unit_word} (bare) or with one "
+               f"of: {', '.join(u for u in table if u)}")
+    value, unit = split_magnitude(text, field, allowed)
+    unit = " ".join(unit.split())
+    if unit not in table:
+        raise InvalidInput(field, text, allowed, f"unknown unit '{unit}'"
+                           f"{suggest(unit, [u for u in table if u])}")
+    si = value * table[unit]
+    if not math.isfinite(si) or si < 0.0 or (positive and si == 0.0):
+        raise InvalidInput(field, text, allowed, "out of range")
+    return si
+
+
+def _angle(text: str, field: str) -> float:
+    from ..quantity import parse_quantity
+
+    return parse_quantity(text, "angle", field, minimum=-math.pi, maximum=math.pi,
+                          include_min=False, include_max=False,
+                          allowed="an angle in (-180, 180) deg, e.g. '10 deg', '0.1 rad' "
+                                  "(bare: deg)")
+
+
+def _fraction(text: str, field: str, high: float | None = None) -> float:
+    from ..quantity import parse_quantity
+
+    return parse_quantity(text, "fraction", field, minimum=0.0, maximum=high,
+                          allowed=f"a number >= 0{'' if high is None else f' and <= {high:g}'}")
+
+
+def _model_from_design(path: Path):
+    """Hook for design files: build a SwingModel from a design (wired by the design-file
+    module once it describes bodies and damping)."""
+    raise InvalidInput("DESIGN.toml", str(path), "options for now (--length/--mass or "
+                       "--inertia/--com-distance/--mass)",
+                       "design files are not read by 'simulate' yet")
+
+
+def _model(length, mass, inertia, com_distance, gravity, q, damping_ratio, viscous, drag,
+           pin_radius, friction, static_friction, friction_torque, linear):
+    from ..simulate import SwingModel
+
+    g, _ = opt.gravity(gravity)
+    kw = {}
+    if drag is not None:
+        kw["drag"] = _si(drag, "drag", "--drag", positive=False)
+    if viscous is not None:
+        kw["viscous"] = _si(viscous, "viscous", "--viscous", positive=False)
+    if pin_radius is not None:
+        kw["pin_radius"] = opt.length(pin_radius, "--pin-radius")
+    if friction is not None:
+        kw["friction"] = _fraction(friction, "--friction")
+    if static_friction is not None:
+        kw["static_friction"] = _fraction(static_friction, "--static-friction")
+    if friction_torque is not None:
+        kw["friction_torque"] = _si(friction_torque, "torque", "--friction-torque",
+                                    positive=False)
+    if inertia is not None or com_distance is not None:
+        if length is not None:
+            raise InvalidInput("--length", length, "either --length (simple pendulum) or "
+                               "--inertia with --com-distance", "give only one body")
+        if inertia is None or com_distance is None:
+            raise InvalidInput("--inertia" if inertia is None else "--com-distance", MISSING,
+                               "--inertia and --com-distance together (with --mass)",
+                               "missing")
+        m = opt.mass(mass) if mass is not None else 1.0
+        model = SwingModel(inertia=_si(inertia, "inertia", "--inertia"), mass=m,
+                           com_distance=opt.length(com_distance, "--com-distance"), gravity=g,
+                           linear=linear, name="body from options", **kw)
+    else:
+        L = opt.length(length) if length is not None else 1.0
+        m = opt.mass(mass) if mass is not None else 1.0
+        model = SwingModel.simple(L, m, g, linear=linear, **kw)
+        model = SwingModel(**{**model.__dict__, "name": "simple pendulum"})
+    given = [x is not None for x in (q, damping_ratio, viscous)]
+    if sum(given) > 1:
+        raise InvalidInput("--q", q, "one of --q, --damping-ratio or --viscous",
+                           "give only one")
+    if q is not None:
+        from ..quantity import split_magnitude
+
+        value, unit = split_magnitude(q, "--q", "a quality factor Q > 0.5")
+        if unit:
+            raise InvalidInput("--q", q, "a quality factor Q > 0.5", "Q takes no unit")
+        model = _named("--q", lambda: model.with_q(value))
+    if damping_ratio is not None:
+        z = _fraction(damping_ratio, "--damping-ratio")
+        model = _named("--damping-ratio", lambda: model.with_damping_ratio(z))
+    return model
+
+
+def _named(option, fn):
+    try:
+        return fn()
+    except InvalidInput as exc:
+        raise exc.renamed(option) from None
+
+
+def _drives(torque, torque_frequency, pivot, pivot_amplitude, pivot_frequency,
+            push_energy, push_impulse, push_angle, push_per):
+    from ..simulate import HarmonicTorque, ImpulseDrive, PivotMotion
+
+    out = []
+    if torque is not None or torque_frequency is not None:
+        if torque is None or torque_frequency is None:
+            raise InvalidInput("--torque" if torque is None else "--torque-frequency",
+                               MISSING, "--torque with --torque-frequency", "missing")
+        out.append(HarmonicTorque(_si(torque, "torque", "--torque"),
+                                  _si(torque_frequency, "frequency", "--torque-frequency")))
+    if pivot is not None:
+        axis = pivot.strip().lower()
+        if axis not in ("horizontal", "vertical"):
+            raise InvalidInput("--pivot-motion", pivot, "horizontal or vertical")
+        if pivot_amplitude is None or pivot_frequency is None:
+            raise InvalidInput("--pivot-amplitude" if pivot_amplitude is None
+                               else "--pivot-frequency", MISSING,
+                               "--pivot-amplitude and --pivot-frequency with --pivot-motion",
+                               "missing")
+        out.append(PivotMotion(axis, opt.length(pivot_amplitude, "--pivot-amplitude"),
+                               _si(pivot_frequency, "frequency", "--pivot-frequency")))
+    if push_energy is not None or push_impulse is not None:
+        if push_energy is not None and push_impulse is not None:
+            raise InvalidInput("--push-impulse", push_impulse,
+                               "either --push-energy or --push-impulse", "give only one")
+        per = (push_per or "beat").strip().lower()
+        if per not in ("beat", "swing"):
+            raise InvalidInput("--push-per", push_per, "beat or swing")
+        angle = _angle(push_angle, "--push-angle") if push_angle is not None else 0.0
+        out.append(ImpulseDrive(
+            angle, energy=None if push_energy is None else _si(push_energy, "energy",
+                                                                 "--push-energy"),
+            angular_impulse=None if push_impulse is None else _si(push_impulse, "impulse",
+                                                                  "--push-impulse"),
+            per=per))
+    return out
+
+
+def _progress_bar():
+    """A rich progress bar on stderr that appears only once a run has taken a second."""
+    import time
+
+    state = {"bar": None, "task": None, "start": time.perf_counter()}
+
+    def update(t, t_end, done, wanted):
+        if state["bar"] is None:
+            if time.perf_counter() - state["start"] < 1.0 or not sys.stderr.isatty():
+                return
+            from rich.console import Console
+            from rich.progress import BarColumn, Progress, TextColumn, TimeElapsedColumn
+
+            state["bar"] = Progress(TextColumn("simulating"), BarColumn(),
+                                    TextColumn("{task.percentage:>5.1f} %"),
+                                    TimeElapsedColumn(), TextColumn("Ctrl-C keeps results"),
+                                    console=Console(stderr=True), transient=True)
+            state["bar"].start()
+            state["task"] = state["bar"].add_task("run", total=1.0)
+        frac = 0.0
+        if math.isfinite(t_end) and t_end > 0:
+            frac = t / t_end
+        if wanted:
+            frac = max(frac, done / (wanted + 1))
+        state["bar"].update(state["task"], completed=min(frac, 1.0))
+
+    def close():
+        if state["bar"] is not None:
+            state["bar"].stop()
+
+    update.close = close
+    return update
+
+
+def register(app) -> None:
+    """Add the ``simulate`` command to ``app``."""
+
+    @app.command("simulate")
+    def simulate(
+        design: Annotated[Path | None, typer.Argument(
+            metavar="[DESIGN.toml]", help="Design file (not read yet: use the options).",
+            show_default=False)] = None,
+        length: opt.Length = None, mass: opt.Mass = None, gravity: opt.Gravity = None,
+        inertia: Annotated[_Text, _opt("--inertia", "INERTIA",
+                                       "Instead of --length: inertia about the pivot "
+                                       "[kg m^2] (with --com-distance, --mass).")] = None,
+        com_distance: Annotated[_Text, _opt("--com-distance", "LENGTH",
+                                            "Pivot to centre of mass (with --inertia).")] = None,
+        amplitude: Annotated[str, _opt("--amplitude", "ANGLE",
+                                       "Start angle, released at rest (bare: deg).")] = "10",
+        angular_speed: Annotated[_Text, _opt("--angular-speed", "RATE",
+                                             "Start angular speed (bare: rad/s).")] = None,
+        duration: Annotated[_Text, _opt("--duration", "TIME",
+                                        "Simulated time, e.g. '60 s', '7 day'.")] = None,
+        cycles: Annotated[_Text, _opt("--cycles", "N", "Stop after N complete cycles.")] = None,
+        q: Annotated[_Text, _opt("--q", "Q", "Viscous damping given as Q at small "
+                                 "amplitude.")] = None,
+        damping_ratio: Annotated[_Text, _opt("--damping-ratio", "ZETA",
+                                             "Viscous damping as a damping ratio.")] = None,
+        viscous: Annotated[_Text, _opt("--viscous", "C", "Viscous coefficient [N m s].")] = None,
+        drag: Annotated[_Text, _opt("--drag", "D", "Quadratic drag coefficient D "
+                                    "[N m s^2]: torque -D w|w|.")] = None,
+        pin_radius: Annotated[_Text, _opt("--pin-radius", "LENGTH",
+                                          "Pivot pin radius (friction follows the "
+                                          "reaction).")] = None,
+        friction: Annotated[_Text, _opt("--friction", "MU",
+                                        "Kinetic friction coefficient at the pin.")] = None,
+        static_friction: Annotated[_Text, _opt("--static-friction", "MU",
+                                               "Static friction coefficient (default: "
+                                               "kinetic).")] = None,
+        friction_torque: Annotated[_Text, _opt("--friction-torque", "TORQUE",
+                                               "Instead: a constant friction torque "
+                                               "[N m].")] = None,
+        linear: Annotated[bool, typer.Option("--linear", help="Linear restoring torque "
+                                             "(the textbook oscillator).")] = False,
+        torque: Annotated[_Text, _opt("--torque", "TORQUE", "Harmonic torque amplitude "
+                                      "[N m].")] = None,
+        torque_frequency: Annotated[_Text, _opt("--torque-frequency", "FREQ",
+                                                "Its frequency (bare: Hz; or rad/s).")] = None,
+        pivot_motion: Annotated[_Text, _opt("--pivot-motion", "AXIS",
+                                            "Move the pivot: horizontal or vertical.")] = None,
+        pivot_amplitude: Annotated[_Text, _opt("--pivot-amplitude", "LENGTH",
+                                               "Pivot motion amplitude.")] = None,
+        pivot_frequency: Annotated[_Text, _opt("--pivot-frequency", "FREQ",
+                                               "Pivot motion frequency (bare: Hz).")] = None,
+        push_energy: Annotated[_Text, _opt("--push-energy", "ENERGY",
+                                           "Push: energy per push [J].")] = None,
+        push_impulse: Annotated[_Text, _opt("--push-impulse", "IMPULSE",
+                                            "Push: angular impulse per push [N m s].")] = None,
+        push_angle: Annotated[_Text, _opt("--push-angle", "ANGLE",
+                                          "Where the push is given (default 0: the "
+                                          "bottom).")] = None,
+        push_per: Annotated[_Text, _opt("--push-per", "WHEN",
+                                        "beat (each half swing) or swing (once per "
+                                        "period).")] = None,
+        target_period: Annotated[_Text, _opt("--target-period", "TIME",
+                                             "Period for the rate error (default: the "
+                                             "small-angle period).")] = None,
+        rtol: Annotated[_Text, _opt("--rtol", "TOL", "Relative tolerance of the "
+                                    "integrator (default 1e-12).")] = None,
+        averaged: Annotated[bool, typer.Option("--averaged", help="Use the cycle-averaged "
+                                               "model (weeks of running in a second).")]
+        = False,
+        context: Annotated[_Text, _opt("--context", "CONTEXT",
+                                       "clock, ride, gate, impact, damper, load or general "
+                                       "(for the cautions).")] = None,
+        cycles_file: Annotated[_Text, _opt("--cycles-file", "FILE",
+                                           "Write the whole per-cycle table (.csv, .json, "
+                                           ".md, .txt).")] = None,
+        history_file: Annotated[_Text, _opt("--history-file", "FILE",
+                                            "Write the time history (.csv, .json, .md, "
+                                            ".txt).")] = None,
+        fmt: opt.Format = None, output: opt.Output = None, force: opt.Force = False,
+    ) -> None:
+        """Damped, driven motion: decay, Q, rate, steady amplitude under a push or a
+        forcing, energy budget per mechanism, stick-slip pivot friction, peak loads.
+
+        A simple pendulum from --length/--mass (default 1 m, 1 kg), or a body from
+        --inertia/--com-distance/--mass. --averaged runs the cycle-averaged model."""
+        _run(**locals())
+
+
+def _files(cycles_file, history_file, force):
+    from ..report.files import check_writable
+
+    out = {}
+    for name, text in (("--cycles-file", cycles_file), ("--history-file", history_file)):
+        if text is None:
+            continue
+        path = opt.output_path(text, name)
+        kind = _file_format(path, name)
+        check_writable(path, force, name)
+        out[name] = (path, kind)
+    return out
+
+
+def _file_format(path: Path, field: str) -> str:
+    suffix = path.suffix.lower()
+    kinds = {".csv": "csv", ".json": "json", ".md": "markdown", ".txt": "table"}
+    if suffix not in kinds:
+        raise InvalidInput(field, str(path), "a file ending in .csv, .json, .md or .txt",
+                           "cannot tell the format from the file name")
+    return kinds[suffix]
+
+
+def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_distance=None,
+         amplitude="10", angular_speed=None, duration=None, cycles=None, q=None,
+         damping_ratio=None, viscous=None, drag=None, pin_radius=None, friction=None,
+         static_friction=None, friction_torque=None, linear=False, torque=None,
+         torque_frequency=None, pivot_motion=None, pivot_amplitude=None, pivot_frequency=None,
+         push_energy=None, push_impulse=None, push_angle=None, push_per=None,
+         target_period=None, rtol=None, averaged=False, context=None, cycles_file=None,
+         history_file=None, fmt=None, output=None, force=False):
+    from ..designfile import CONTEXTS
+    from ..quantity import parse_quantity, split_magnitude, suggest
+    from ..report.files import write_atomic
+    from ..report.formats import render
+    from .app import _emit, _precheck
+
+    kind, path = _precheck(fmt, output, force)
+    files = _files(cycles_file, history_file, force)
+    if design is not None:
+        _model_from_design(design)
+    ctx = "general" if context is None else context.strip().lower()
+    if ctx not in CONTEXTS:
+        raise InvalidInput("--context", context, ", ".join(CONTEXTS),
+                           f"unknown context{suggest(ctx, CONTEXTS)}")
+    model = _model(length, mass, inertia, com_distance, gravity, q, damping_ratio, viscous,
+                   drag, pin_radius, friction, static_friction, friction_torque, linear)
+    drives = _drives(torque, torque_frequency, pivot_motion, pivot_amplitude, pivot_frequency,
+                     push_energy, push_impulse, push_angle, push_per)
+    theta0 = _angle(amplitude, "--amplitude")
+    omega0 = 0.0 if angular_speed is None else parse_quantity(angular_speed,
+                                                              "angular_velocity",
+                                                              "--angular-speed")
+    T = opt.positive_time(duration, "--duration") if duration is not None else None
+    n = None
+    if cycles is not None:
+        value, unit = split_magnitude(cycles, "--cycles", "a whole number of cycles >= 1")
+        if unit or value < 1 or value != int(value) or value > 1e9:
+            raise InvalidInput("--cycles", cycles, "a whole number of cycles in [1, 1e9]")
+        n = int(value)
+    if T is None and n is None:
+        raise InvalidInput("--duration", MISSING, "--duration or --cycles", "give one")
+    target = (opt.positive_time(target_period, "--target-period")
+              if target_period is not None else None)
+    tol = 1e-12
+    if rtol is not None:
+        tol = parse_quantity(rtol, "fraction", "--rtol", minimum=1e-14, maximum=1e-3,
+                             allowed="a relative tolerance in [1e-14, 1e-3]")
+    if averaged:
+        from ..averaged import averaged as run_averaged
+        from ..report.simulation import averaged_cycles_report, averaged_report
+        from ..simulate import ImpulseDrive
+
+        pushes = [d for d in drives if isinstance(d, ImpulseDrive)]
+        others = [d for d in drives if not isinstance(d, ImpulseDrive)]
+        if abs(theta0) == 0.0:
+            raise InvalidInput("--amplitude", amplitude, "a start amplitude > 0 with "
+                               "--averaged", "out of range")
+        if omega0 != 0.0:
+            raise InvalidInput("--angular-speed", angular_speed, "no start speed with "
+                               "--averaged (it starts at a turning point)")
+        res = run_averaged(model, abs(theta0), cycles=n,
+                           duration=T if n is None else None,
+                           drive=pushes[0] if pushes else None, drives=others,
+                           target_period=target)
+        report = averaged_report(res, ctx)
+        for name, (fpath, fkind) in files.items():
+            if name == "--history-file":
+                raise InvalidInput("--history-file", str(fpath), "no history file with "
+                                   "--averaged (it has no time history)")
+            if fkind == "csv":
+                res.write_cycles_csv(fpath, force=force)
+            else:
+                write_atomic(fpath, render(averaged_cycles_report(res), fkind), force=force,
+                             field=name)
+        _emit(report, kind, path, force)
+        return
+    from ..report.simulation import cycles_report, history_report, simulation_report
+    from ..simulate import simulate as run_simulate
+
+    bar = _progress_bar()
+    try:
+        res = run_simulate(model, theta0, omega0, duration=T, cycles=n, drives=drives,
+                           rtol=tol, target_period=target, progress=bar)
+    finally:
+        bar.close()
+    report = simulation_report(res, ctx)
+    for name, (fpath, fkind) in files.items():
+        rep = cycles_report(res) if name == "--cycles-file" else history_report(res)
+        write_atomic(fpath, render(rep, fkind), force=force, field=name)
+    _emit(report, kind, path, force)
+    if res.status == "interrupted":
+        sys.stderr.write("swingcalc: interrupted; the results up to then were written\n")
+        raise typer.Exit(130)
+    if res.status == "failed":
+        sys.stderr.write(f"swingcalc: {res.message}\n")
+        raise typer.Exit(1)

@@ -1,0 +1,127 @@
+"""The simulate command: every format, the cycles and history files, the averaged model,
+and bad input as exit status 2 with one line on stderr."""
+
+import csv
+import io
+import json
+import math
+import re
+
+import pytest
+from typer.testing import CliRunner
+
+from swingcalc.cli.app import app
+
+ANSI = re.compile(r"\x1b\[[0-9;?]*[ -/]*[@-~]")
+runner = CliRunner()
+
+
+def run(*args):
+    result = runner.invoke(app, [str(a) for a in args])
+    out, err = ANSI.sub("", result.stdout), ANSI.sub("", result.stderr)
+    assert "Traceback" not in out + err
+    return result.exit_code, out, err
+
+
+def run_ok(*args):
+    code, out, err = run(*args)
+    assert code == 0, err
+    return out, err
+
+
+def assert_bad(args, *words):
+    code, out, err = run(*args)
+    assert code == 2, (code, out, err)
+    lines = err.strip().splitlines()
+    assert len(lines) == 1, err
+    for w in words:
+        assert w in lines[0], (w, lines[0])
+    assert out == ""
+
+
+BASE = ("simulate", "--length", "994 mm", "--q", "300", "--cycles", "6", "--amplitude", "5")
+
+
+@pytest.mark.parametrize("fmt", ["table", "csv", "json", "markdown"])
+def test_every_format_carries_summary_and_cautions(fmt):
+    out, _ = run_ok(*BASE, "--format", fmt)
+    if fmt == "json":
+        d = json.loads(out)
+        assert d["command"] == "simulate"
+        assert d["summary"]["cycles"] == 6
+        assert d["cautions"]
+        assert len(d["tables"]["cycles"]) == 6
+    else:
+        assert "caution" in out.lower()
+
+
+def test_json_q_matches_the_damping_given():
+    """--q 300 at 5 deg: Q from the measured decrement is close to 300 (the pendulum's Q
+    rises slightly with amplitude under viscous damping; 1 % covers 5 deg, common
+    practice estimate)."""
+    d = json.loads(run_ok(*BASE, "--format", "json")[0])
+    assert d["summary"]["q_first"] == pytest.approx(300, rel=0.01)
+    assert d["summary"]["energy_closure_rel"] <= 1e-8
+
+
+def test_cycles_and_history_files(tmp_path):
+    cyc = tmp_path / "cycles.csv"
+    hist = tmp_path / "history.json"
+    run_ok(*BASE, "--cycles-file", cyc, "--history-file", hist, "--format", "json")
+    rows = [r for r in csv.reader(io.StringIO(cyc.read_text())) if r and not r[0].startswith("#")]
+    assert rows[0][:3] == ["cycle", "start_time_s", "period_s"]
+    assert len(rows) == 7
+    h = json.loads(hist.read_text())
+    t = h["tables"]["history"]
+    assert t[0]["time_s"] == 0.0 and t[0]["angle_rad"] == pytest.approx(math.radians(5))
+    # never overwritten without --force
+    assert_bad((*BASE, "--cycles-file", cyc), "--cycles-file", "exists")
+    run_ok(*BASE, "--cycles-file", cyc, "--force", "--format", "csv")
+
+
+def test_push_and_averaged_model(tmp_path):
+    cyc = tmp_path / "week.csv"
+    out, _ = run_ok("simulate", "--length", "994 mm", "--q", "5000", "--amplitude", "3",
+                    "--push-energy", "2e-6", "--duration", "1 day", "--averaged",
+                    "--cycles-file", cyc, "--format", "json")
+    d = json.loads(out)
+    assert d["summary"]["assumptions_hold"] is True
+    assert d["summary"]["cycles"] > 40000
+    assert cyc.read_text().count("\n") == d["summary"]["cycles"] + 1
+
+
+def test_friction_run_reports_rest():
+    d = json.loads(run_ok("simulate", "--length", "1", "--amplitude", "10", "--pin-radius",
+                          "5 mm", "--friction", "0.2", "--duration", "600",
+                          "--format", "json")[0])
+    assert d["summary"]["at_rest"] is True
+
+
+def test_body_from_inertia_and_harmonic_torque():
+    d = json.loads(run_ok("simulate", "--inertia", "0.5", "--com-distance", "0.4", "--mass",
+                          "2", "--damping-ratio", "0.05", "--amplitude", "0", "--torque",
+                          "0.01", "--torque-frequency", "0.2 Hz", "--duration", "60",
+                          "--format", "json")[0])
+    assert d["summary"]["duration_s"] == pytest.approx(60.0)
+    assert any(k.startswith("supplied_torque") for k in d["summary"])
+
+
+@pytest.mark.parametrize("args, words", [
+    (("simulate", "--length", "1"), ("--duration",)),
+    (("simulate", "--length", "-1", "--cycles", "3"), ("--length",)),
+    (("simulate", "--cycles", "2.5"), ("--cycles",)),
+    (("simulate", "--cycles", "3", "--q", "0.1"), ("--q",)),
+    (("simulate", "--cycles", "3", "--q", "50", "--damping-ratio", "0.1"), ("--q",)),
+    (("simulate", "--cycles", "3", "--friction", "0.1"), ("pin_radius",)),
+    (("simulate", "--cycles", "3", "--torque", "1"), ("--torque-frequency",)),
+    (("simulate", "--cycles", "3", "--pivot-motion", "diagonal"), ("--pivot-motion",)),
+    (("simulate", "--cycles", "3", "--push-energy", "1 kg"), ("--push-energy", "unit")),
+    (("simulate", "--cycles", "3", "--inertia", "1"), ("--com-distance",)),
+    (("simulate", "--cycles", "3", "--format", "xml"), ("--format",)),
+    (("simulate", "--cycles", "3", "--cycles-file", "x.pdf"), ("--cycles-file",)),
+    (("simulate", "--cycles", "3", "--context", "boat"), ("--context",)),
+    (("simulate", "--cycles", "3", "--amplitude", "200"), ("--amplitude",)),
+    (("simulate", "x.toml", "--cycles", "3"), ("DESIGN.toml",)),
+])
+def test_bad_input_is_one_line_exit_2(args, words):
+    assert_bad(args, *words)
