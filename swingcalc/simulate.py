@@ -173,6 +173,34 @@ class SwingModel:
         mm = positive_scalar(mass, "mass", "kg")
         return cls(inertia=mm * L * L, mass=mm, com_distance=L, gravity=gravity, **options)
 
+    @classmethod
+    def from_pendulum(cls, pendulum, pivot=None, name: str = "", **options) -> SwingModel:
+        """The model of a body in its place (:class:`~swingcalc.compound.CompoundPendulum`):
+        its inertia with the air's added mass, its restoring moment less buoyancy and its
+        parts' quadratic drag, with the pivot's friction (:class:`~swingcalc.body.Pivot`:
+        a pin of a radius and friction coefficients, a given friction torque, or a knife
+        edge). ``options`` (``viscous``, ``drag``, friction fields, ...) override.
+
+        Examples
+        --------
+        >>> from swingcalc.body import assemble, point_bob
+        >>> from swingcalc.compound import compound_pendulum
+        >>> m = SwingModel.from_pendulum(compound_pendulum(assemble(*point_bob(0.994, 1.2))))
+        >>> round(m.small_angle_period, 6)
+        2.000086
+        """
+        kw = dict(inertia=pendulum.inertia_kg_m2, mass=pendulum.mass_kg,
+                  com_distance=pendulum.com_distance_m, gravity=pendulum.gravity_m_s2,
+                  restoring_moment=pendulum.restoring_moment_N_m,
+                  drag=pendulum.air.drag_coefficient_N_m_s2, name=name)
+        if pivot is not None and pivot.kind == "pin":
+            kw.update(pin_radius=pivot.pin_radius, friction=pivot.friction_coefficient,
+                      static_friction=pivot.static_friction_coefficient)
+        elif pivot is not None and pivot.kind == "torque":
+            kw.update(friction_torque=pivot.friction_torque)
+        kw.update(options)
+        return cls(**kw)
+
     @property
     def small_angle_frequency(self) -> float:
         """w0 = sqrt(M / I) [rad/s]."""

@@ -115,13 +115,26 @@ def test_body_from_inertia_and_harmonic_torque():
     (("simulate", "--cycles", "3", "--friction", "0.1"), ("pin_radius",)),
     (("simulate", "--cycles", "3", "--torque", "1"), ("--torque-frequency",)),
     (("simulate", "--cycles", "3", "--pivot-motion", "diagonal"), ("--pivot-motion",)),
-    (("simulate", "--cycles", "3", "--push-energy", "1 kg"), ("--push-energy", "unit")),
+    (("simulate", "--cycles", "3", "--push-energy", "1 kg"), ("--push-energy", "not an energy")),
     (("simulate", "--cycles", "3", "--inertia", "1"), ("--com-distance",)),
     (("simulate", "--cycles", "3", "--format", "xml"), ("--format",)),
     (("simulate", "--cycles", "3", "--cycles-file", "x.pdf"), ("--cycles-file",)),
     (("simulate", "--cycles", "3", "--context", "boat"), ("--context",)),
     (("simulate", "--cycles", "3", "--amplitude", "200"), ("--amplitude",)),
-    (("simulate", "x.toml", "--cycles", "3"), ("DESIGN.toml",)),
+    (("simulate", "x.toml", "--cycles", "3"), ("x.toml", "no such file")),
+    (("simulate", "x.toml", "--length", "1", "--cycles", "3"), ("--length", "design file")),
 ])
 def test_bad_input_is_one_line_exit_2(args, words):
     assert_bad(args, *words)
+
+
+def test_design_file_runs_with_its_context_amplitude_and_target():
+    """The bundled playground seat: its context's cautions (EN 1176), its first working
+    amplitude as the start and its pin friction (the run reports friction torque)."""
+    from swingcalc import examples
+
+    d = json.loads(run_ok("simulate", examples.path("playground_seat.toml"), "--cycles", "4",
+                          "--format", "json")[0])
+    assert any("EN 1176" in c for c in d["cautions"])
+    assert d["summary"]["initial_amplitude_rad"] == pytest.approx(math.radians(30), rel=1e-12)
+    assert d["inputs"]["pin_radius_m"] == pytest.approx(0.006, rel=1e-15)

@@ -248,3 +248,21 @@ def test_result_to_dict_is_json_ready():
                  drives=[ImpulseDrive(0.0, energy=1e-4)])
     text = json.dumps(r.to_dict(), allow_nan=True)
     assert "cycles" in text and "energy" in text
+
+
+def test_model_from_a_design_carries_its_body_air_and_pivot():
+    """The bundled gate arm (a pin pivot, air on): the model's inertia, restoring moment
+    and drag are the compound pendulum's, its friction the pin's; the small-angle period
+    is the design's (plumbing check: both sides come from the library)."""
+    from swingcalc import examples
+    from swingcalc.designfile import parse_design
+    from swingcalc.simulate import SwingModel
+
+    d = parse_design(examples.text("gate_arm.toml"))
+    m = SwingModel.from_pendulum(d.pendulum, d.pivot)
+    assert m.inertia == d.pendulum.inertia_kg_m2
+    assert m.restoring_moment == d.pendulum.restoring_moment_N_m
+    assert m.drag == d.pendulum.air.drag_coefficient_N_m_s2 > 0
+    assert m.pin_radius == d.pivot.pin_radius and m.friction == d.pivot.friction_coefficient
+    assert m.static_friction == d.pivot.static_friction_coefficient
+    assert m.small_angle_period == pytest.approx(d.pendulum.small_angle_period_s, rel=1e-15)

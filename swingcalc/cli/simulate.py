@@ -6,9 +6,8 @@ report, the per-cycle table (``--cycles-file``) and the time history
 (``--history-file``). Ctrl-C keeps what was computed: it is reported and written, and the
 exit status is 130.
 
-Design files: the hook is :func:`_model_from_design` (not wired yet; the design-file
-module is being rewritten). For now a simple pendulum from --length/--mass, or a given
-body from --inertia/--com-distance/--mass.
+The body: a design file (or the bundled default), a simple pendulum from
+--length/--mass, or a given body from --inertia/--com-distance/--mass.
 """
 
 from __future__ import annotations
@@ -32,37 +31,33 @@ def _opt(name: str, metavar: str, help_text: str):
     return typer.Option(name, metavar=metavar, help=help_text)
 
 
-# Units accepted for quantities that swingcalc.quantity has no kind for (SI factor).
-_UNITS = {
-    "inertia": ("kg m^2", {"": 1.0, "kg m^2": 1.0, "kg*m^2": 1.0, "kg m2": 1.0,
-                           "g cm^2": 1e-7}),
-    "torque": ("N m", {"": 1.0, "N m": 1.0, "N*m": 1.0, "Nm": 1.0, "mN m": 1e-3,
-                       "N mm": 1e-3}),
-    "energy": ("J", {"": 1.0, "J": 1.0, "mJ": 1e-3, "uJ": 1e-6, "µJ": 1e-6}),
-    "impulse": ("N m s", {"": 1.0, "N m s": 1.0, "N*m*s": 1.0, "mN m s": 1e-3}),
-    "viscous": ("N m s", {"": 1.0, "N m s": 1.0, "N*m*s": 1.0}),
-    "drag": ("N m s^2", {"": 1.0, "N m s^2": 1.0, "N*m*s^2": 1.0, "kg m^2": 1.0}),
-    "frequency": ("Hz", {"": 2.0 * math.pi, "Hz": 2.0 * math.pi, "rad/s": 1.0,
-                         "rpm": 2.0 * math.pi / 60.0}),
-}
+_KINDS = {"inertia": "inertia", "torque": "torque", "energy": "energy",
+          "impulse": "angular_impulse", "viscous": "viscous", "drag": "drag_torque"}
 
 
 def _si(text: str, kind: str, field: str, positive: bool = True) -> float:
-    """A number with an optional unit from the small table above -> SI."""
-    from ..quantity import split_magnitude, suggest
+    """A quantity of one of the kinds above -> SI (bare numbers are SI)."""
+    from ..quantity import parse_quantity
 
-    unit_word, table = _UNITS[kind]
-    allowed = (f"a number {'> 0' if positive else '>= 0'} in {unit_word} (bare) or with one "
-               f"of: {', '.join(u for u in table if u)}")
-    value, unit = split_magnitude(text, field, allowed)
-    unit = " ".join(unit.split())
-    if unit not in table:
-        raise InvalidInput(field, text, allowed, f"unknown unit '{unit}'"
-                           f"{suggest(unit, [u for u in table if u])}")
-    si = value * table[unit]
-    if not math.isfinite(si) or si < 0.0 or (positive and si == 0.0):
-        raise InvalidInput(field, text, allowed, "out of range")
-    return si
+    bounds = dict(minimum=0.0, include_min=not positive)
+    if kind == "frequency":
+        return _angular_frequency(text, field)
+    return parse_quantity(text, _KINDS[kind], field, **bounds)
+
+
+def _angular_frequency(text: str, field: str) -> float:
+    """A drive frequency -> rad/s: in Hz (bare), or an angular speed ('2 rad/s', '30 rpm').
+    The two are told apart here because pint takes a radian as 1, so 1 rad/s would read
+    as 1 Hz, 2 pi times too fast."""
+    from ..quantity import parse_quantity, split_magnitude
+
+    allowed = "a frequency > 0: '0.5 Hz' (bare: Hz), or an angular speed '3 rad/s', '30 rpm'"
+    _, unit = split_magnitude(text, field, allowed)
+    if "rad" in unit or "rpm" in unit or "deg" in unit or "rps" in unit:
+        return parse_quantity(text, "angular_velocity", field, allowed=allowed, minimum=0.0,
+                              include_min=False)
+    return 2.0 * math.pi * parse_quantity(text, "frequency", field, allowed=allowed,
+                                          minimum=0.0, include_min=False)
 
 
 def _angle(text: str, field: str) -> float:
@@ -81,16 +76,25 @@ def _fraction(text: str, field: str, high: float | None = None) -> float:
                           allowed=f"a number >= 0{'' if high is None else f' and <= {high:g}'}")
 
 
-def _model_from_design(path: Path):
-    """Hook for design files: build a SwingModel from a design (wired by the design-file
-    module once it describes bodies and damping)."""
-    raise InvalidInput("DESIGN.toml", str(path), "options for now (--length/--mass or "
-                       "--inertia/--com-distance/--mass)",
-                       "design files are not read by 'simulate' yet")
+def _design_or_none(design, length, mass, inertia, com_distance, gravity):
+    """The design to simulate: the file, or the bundled default when no body is given by
+    options (as every design command does); None for a body from options."""
+    body_options = {k: v for k, v in (("--length", length), ("--mass", mass),
+                                      ("--inertia", inertia),
+                                      ("--com-distance", com_distance)) if v is not None}
+    if design is None and body_options:
+        return None
+    if body_options:
+        raise InvalidInput(next(iter(body_options)), MISSING,
+                           "a design file or the body options, not both",
+                           "the design file describes the body")
+    from .app import _design
+
+    return _design(design, gravity=gravity)
 
 
 def _model(length, mass, inertia, com_distance, gravity, q, damping_ratio, viscous, drag,
-           pin_radius, friction, static_friction, friction_torque, linear):
+           pin_radius, friction, static_friction, friction_torque, linear, design=None):
     from ..simulate import SwingModel
 
     g, _ = opt.gravity(gravity)
@@ -108,7 +112,17 @@ def _model(length, mass, inertia, com_distance, gravity, q, damping_ratio, visco
     if friction_torque is not None:
         kw["friction_torque"] = _si(friction_torque, "torque", "--friction-torque",
                                     positive=False)
-    if inertia is not None or com_distance is not None:
+    if design is not None:
+        if linear:
+            kw["linear"] = True
+        if any(k in kw for k in ("pin_radius", "friction", "static_friction",
+                                 "friction_torque")):
+            # friction options replace the design's pivot as a whole
+            model = SwingModel.from_pendulum(design.pendulum, None, name=design.name, **kw)
+        else:
+            model = SwingModel.from_pendulum(design.pendulum, design.pivot, name=design.name,
+                                             **kw)
+    elif inertia is not None or com_distance is not None:
         if length is not None:
             raise InvalidInput("--length", length, "either --length (simple pendulum) or "
                                "--inertia with --com-distance", "give only one body")
@@ -228,7 +242,8 @@ def register(app) -> None:
     @app.command("simulate")
     def simulate(
         design: Annotated[Path | None, typer.Argument(
-            metavar="[DESIGN.toml]", help="Design file (not read yet: use the options).",
+            metavar="[DESIGN.toml]", help="Design file (TOML). Default: the bundled long-case "
+            "clock, unless a body is given by options.",
             show_default=False)] = None,
         length: opt.Length = None, mass: opt.Mass = None, gravity: opt.Gravity = None,
         inertia: Annotated[_Text, _opt("--inertia", "INERTIA",
@@ -236,8 +251,9 @@ def register(app) -> None:
                                        "[kg m^2] (with --com-distance, --mass).")] = None,
         com_distance: Annotated[_Text, _opt("--com-distance", "LENGTH",
                                             "Pivot to centre of mass (with --inertia).")] = None,
-        amplitude: Annotated[str, _opt("--amplitude", "ANGLE",
-                                       "Start angle, released at rest (bare: deg).")] = "10",
+        amplitude: Annotated[_Text, _opt("--amplitude", "ANGLE",
+                                         "Start angle, released at rest (bare: deg; default: "
+                                         "the design's first amplitude, or 10 deg).")] = None,
         angular_speed: Annotated[_Text, _opt("--angular-speed", "RATE",
                                              "Start angular speed (bare: rad/s).")] = None,
         duration: Annotated[_Text, _opt("--duration", "TIME",
@@ -305,8 +321,11 @@ def register(app) -> None:
         """Damped, driven motion: decay, Q, rate, steady amplitude under a push or a
         forcing, energy budget per mechanism, stick-slip pivot friction, peak loads.
 
-        A simple pendulum from --length/--mass (default 1 m, 1 kg), or a body from
-        --inertia/--com-distance/--mass. --averaged runs the cycle-averaged model."""
+        A design file (its body, air drag and pivot friction; default: the bundled
+        long-case clock), or a simple pendulum from --length/--mass (1 m, 1 kg by
+        default), or a body from --inertia/--com-distance/--mass. Damping and friction
+        options add to (or, for the pivot, replace) the design's. --averaged runs the
+        cycle-averaged model."""
         _run(**locals())
 
 
@@ -334,7 +353,7 @@ def _file_format(path: Path, field: str) -> str:
 
 
 def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_distance=None,
-         amplitude="10", angular_speed=None, duration=None, cycles=None, q=None,
+         amplitude=None, angular_speed=None, duration=None, cycles=None, q=None,
          damping_ratio=None, viscous=None, drag=None, pin_radius=None, friction=None,
          static_friction=None, friction_torque=None, linear=False, torque=None,
          torque_frequency=None, pivot_motion=None, pivot_amplitude=None, pivot_frequency=None,
@@ -349,17 +368,23 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
 
     kind, path = _precheck(fmt, output, force)
     files = _files(cycles_file, history_file, force)
-    if design is not None:
-        _model_from_design(design)
-    ctx = "general" if context is None else context.strip().lower()
+    d = _design_or_none(design, length, mass, inertia, com_distance, gravity)
+    ctx = (d.context if d is not None else "general") if context is None \
+        else context.strip().lower()
     if ctx not in CONTEXTS:
         raise InvalidInput("--context", context, ", ".join(CONTEXTS),
                            f"unknown context{suggest(ctx, CONTEXTS)}")
     model = _model(length, mass, inertia, com_distance, gravity, q, damping_ratio, viscous,
-                   drag, pin_radius, friction, static_friction, friction_torque, linear)
+                   drag, pin_radius, friction, static_friction, friction_torque, linear,
+                   design=d)
     drives = _drives(torque, torque_frequency, pivot_motion, pivot_amplitude, pivot_frequency,
                      push_energy, push_impulse, push_angle, push_per)
-    theta0 = _angle(amplitude, "--amplitude")
+    if amplitude is not None:
+        theta0 = _angle(amplitude, "--amplitude")
+    else:
+        theta0 = d.amplitudes_rad[0] if d is not None else math.radians(10.0)
+    if target_period is None and d is not None and d.target_period_s is not None:
+        target_period = f"{d.target_period_s!r} s"
     omega0 = 0.0 if angular_speed is None else parse_quantity(angular_speed,
                                                               "angular_velocity",
                                                               "--angular-speed")
