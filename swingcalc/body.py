@@ -372,8 +372,8 @@ def assemble(parts, suspension: Suspension | None = None,
         swings as one rigid body (the point-mass-plus-chain model).
     arm_expansion : float, optional
         Expansion coefficient [1/K] of the arm that sets the parts' mounting points;
-        default: that of the longest rod, tube or flat bar, else of the suspension line
-        (0 when none is known).
+        default: a flexible suspension's own, else that of the longest rod, tube or flat
+        bar (0 when none is known).
 
     Returns
     -------
@@ -424,7 +424,9 @@ def assemble(parts, suspension: Suspension | None = None,
                 for p in resolved)
     l_eq = inertia / (mass * d)
     if arm_expansion is None:
-        arm_expansion = _default_arm_expansion(resolved)
+        # a flexible line carries the payload, so its coefficient sets the mounts
+        arm_expansion = (suspension.expansion if suspension.flexible
+                         else _default_arm_expansion(resolved))
     else:
         arm_expansion = real_scalar(arm_expansion, "arm expansion",
                                     "a finite coefficient in (-1e-3, 1e-3) [1/K]",
@@ -457,11 +459,11 @@ def _line(susp: Suspension, names) -> PartProperties:
 
 
 def _default_arm_expansion(parts) -> float:
-    """The longest rod, tube or flat bar sets the mounts; else a flexible line; else 0."""
-    arms = [p for p in parts if p.shape in ("rod", "tube", "flat_bar", "line")]
+    """On a rigid arm the longest rod, tube or flat bar sets the mounts; else 0."""
+    arms = [p for p in parts if p.shape in ("rod", "tube", "flat_bar")]
     if not arms:
         return 0.0
-    return max(arms, key=lambda p: (p.shape != "line", p.extent_along_m)).expansion_per_K
+    return max(arms, key=lambda p: p.extent_along_m).expansion_per_K
 
 
 def scaled_for_temperature(body: Body, delta_t: float, parts=None) -> Body:

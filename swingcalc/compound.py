@@ -21,11 +21,14 @@ from .body import Body, scaled_for_temperature
 from .constants import SECONDS_PER_DAY, STANDARD_GRAVITY
 from .errors import InvalidInput
 
+#: Gravity the model accepts [m/s^2]: from a small moon's to far past Jupiter's 24.8
+#: (outside it the results are not what anyone means, and the numbers overflow).
+GRAVITY_RANGE = (0.01, 1000.0)
 #: Viscosity of air used when none is given [Pa s]: ISA sea level (ISO 2533).
 AIR_VISCOSITY = 1.7894e-5
 
 __all__ = ["AIR_VISCOSITY", "AirTerms", "CompoundPendulum", "ThermalRate", "compound_pendulum",
-           "air_terms", "rebuilt", "thermal_rate"]
+           "GRAVITY_RANGE", "air_terms", "rebuilt", "thermal_rate"]
 
 
 @dataclass(frozen=True)
@@ -171,7 +174,8 @@ def compound_pendulum(body: Body, gravity: float = STANDARD_GRAVITY,
     >>> round(p.small_angle_period_s, 12)    # a 1 s pendulum at standard gravity
     1.0
     """
-    g = positive_scalar(gravity, "gravity", "m/s^2")
+    g = real_scalar(gravity, "gravity", f"an acceleration in [{GRAVITY_RANGE[0]:g}, "
+                    f"{GRAVITY_RANGE[1]:g}] m/s^2", low=GRAVITY_RANGE[0], high=GRAVITY_RANGE[1])
     m_vac = body.mass_kg * g * body.com_distance_m
     speed = None
     if amplitude is not None:

@@ -60,6 +60,7 @@ from pathlib import Path
 from .body import (MOUNTS, ORIENTATIONS, PIVOT_KINDS, SHAPE_SIZES, SUSPENSION_KINDS, Part,
                    Pivot, Suspension, assemble, point_bob, resolve_part,
                    scaled_for_temperature)
+from .compound import GRAVITY_RANGE
 from .constants import STANDARD_GRAVITY
 from .errors import MISSING, InvalidInput
 from .quantity import parse_quantity, parse_values, suggest
@@ -115,7 +116,8 @@ _CONTROL_CATEGORIES = ("Cc", "Zl", "Zp")
 _TOML_HINT = 'a TOML design file: key = "value" lines, quantities in quotes (length = "994 mm")'
 
 #: What ``gravity`` may be, in a design file or on the command line.
-GRAVITY_ALLOWED = "'standard' (9.80665 m/s^2) or an acceleration > 0, e.g. '9.8123 m/s^2'"
+GRAVITY_ALLOWED = ("'standard' (9.80665 m/s^2) or an acceleration in [0.01, 1000] m/s^2, e.g. "
+                   "'9.8123 m/s^2'")
 _MAX_TEXT_CHARS = 200
 #: Temperature the sizes in a design file are given at, unless it says otherwise.
 REFERENCE_TEMPERATURE_K = 293.15
@@ -128,7 +130,7 @@ def parse_gravity(value, field_name: str) -> tuple[float, str]:
     if value is None or (isinstance(value, str) and value.strip().lower() == "standard"):
         return STANDARD_GRAVITY, "standard"
     g = parse_quantity(value, "acceleration", field_name, allowed=GRAVITY_ALLOWED,
-                       minimum=0.0, include_min=False)
+                       minimum=GRAVITY_RANGE[0], maximum=GRAVITY_RANGE[1])
     return g, str(value)
 
 
@@ -838,7 +840,8 @@ def _environment(r: _Reader, t: dict) -> Environment:
                              default=REFERENCE_TEMPERATURE_K, **bounds)
     reference = r.quantity(s, t, "reference_temperature", temp_allowed,
                            default=REFERENCE_TEMPERATURE_K, **bounds)
-    humidity = r.quantity(s, t, "humidity", "a relative humidity in [0, 100] %",
+    humidity = r.quantity(s, t, "humidity", "a relative humidity in [0, 100] %, e.g. "
+                          "\"45 %\" (a bare number is a fraction: 0.45)",
                           default=0.0, minimum=0.0, maximum=1.0)
     pressure = r.quantity(s, t, "pressure", "an air pressure in [10, 120] kPa",
                           default=None, minimum=10e3, maximum=120e3)

@@ -149,7 +149,7 @@ _ALIASES = {
     "ss304": "stainless-304", "grey-iron": "cast-iron", "gray-iron": "cast-iron",
     "fe-36ni": "invar", "invar-36": "invar", "ti-6al-4v": "titanium-6al-4v",
     "soda-lime-glass": "glass", "quartz-glass": "fused-silica", "silica": "fused-silica",
-    "pom": "acetal", "delrin": "acetal", "pc": "polycarbonate",
+    "pom": "acetal", "pc": "polycarbonate",
 }
 
 

@@ -115,8 +115,9 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
     amplitude : float
         Working amplitude [rad].
     lowest, highest : float, optional
-        Range of the first part's position [m] to search; default: from just below the
-        pivot to twice the present position or the arm's reach, whichever is further.
+        Range of the first part's position [m] to search; default: as far above the
+        pivot as below it, out to twice the present position or the body's reach,
+        whichever is further (positions where the body would not hang are skipped).
 
     Notes
     -----
@@ -131,9 +132,10 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
     body = pend.body
     names = _names(body, part)
     now = next(p for p in body.inputs if p.name == names[0]).position
-    reach = max((p.centre_along_m + 0.5 * p.extent_along_m for p in body.parts), default=now)
-    lo = 1e-3 * max(abs(now), 1e-3) if lowest is None else float(lowest)
-    hi = max(2.0 * abs(now), reach) if highest is None else float(highest)
+    reach = max(max(abs(p.centre_along_m) + 0.5 * p.extent_along_m for p in body.parts),
+                2.0 * abs(now))
+    lo = -reach if lowest is None else float(lowest)
+    hi = reach if highest is None else float(highest)
     if not (math.isfinite(lo) and math.isfinite(hi) and lo < hi):
         raise InvalidInput("position range", (lowest, highest), "a finite range low < high [m]")
     ratio = _ratio(a)
@@ -163,11 +165,10 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
         roots.append(xs[-1])
     what = "', '".join(names)
     if not roots:
-        finite = [f for f in fs if not math.isnan(f)]
-        best = (min(finite) + t) if finite else math.nan
+        finite = [f + t for f in fs if not math.isnan(f)]
         raise InvalidInput("target period", t,
-                           f"a period reachable with '{names[0]}' in [{lo:.6g}, {hi:.6g}] m "
-                           f"(the shortest there is {best:.9g} s)"
+                           f"a period between {min(finite):.9g} and {max(finite):.9g} s "
+                           f"(what '{names[0]}' reaches in [{lo:.6g}, {hi:.6g}] m)"
                            if finite else "a period the part can reach",
                            f"no position of '{what}' gives it")
     best = min(roots, key=lambda x: abs(x - now))
@@ -237,7 +238,9 @@ def max_amplitude_for_limit(pend: CompoundPendulum, quantity: str, limit,
     so the answer is the root of peak(A) = limit, found with Brent's method on
     [0, pi): exact to the float. A limit below the value at rest (the pivot's static
     load, 1 g felt) cannot be met by any swing; a limit above the peak just short of
-    the top is met by every libration, and pi is reported as the bound.
+    the top is met by every libration, and pi is reported as the bound. On a flexible
+    suspension the search stops at 90 deg, where it would go slack; pi/2 is reported
+    when the limit is not reached below that.
     """
     points = dict(points or {})
     names = set(LIMIT_QUANTITIES) | {f"{p}.{q}" for p in points for q in _POINT_LIMITS}
@@ -247,14 +250,16 @@ def max_amplitude_for_limit(pend: CompoundPendulum, quantity: str, limit,
         raise InvalidInput("limit quantity", quantity, ", ".join(sorted(names)),
                            f"not a limited quantity{suggest(quantity, names)}")
     lim = positive_scalar(limit, "limit", "SI unit of the quantity")
-    top = math.nextafter(math.pi, 0.0)
+    flexible = pend.body.suspension.flexible
+    # A flexible suspension goes slack beyond 90 deg: no swing past that is valid.
+    top = 0.5 * math.pi if flexible else math.nextafter(math.pi, 0.0)
     f0 = _peak_value(pend, 0.0, quantity, points)
     if f0 > lim:
         raise InvalidInput("limit", lim, f"a limit above the value at rest ({f0:.6g})",
                            "even a body at rest exceeds it")
     f_top = _peak_value(pend, top, quantity, points)
     if f_top <= lim:
-        return math.pi
+        return top if flexible else math.pi
     from scipy.optimize import brentq
 
     try:

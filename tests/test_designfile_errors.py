@@ -538,7 +538,7 @@ CASES = [
     C("gravity-unknown-word", [(ENV, 'gravity = "earth"\n' + ENV)], "environment.gravity",
       "'standard'", at='gravity = "earth"', got="'earth'"),
     C("gravity-wrong-unit-kind", [(ENV, 'gravity = "9.8 m/s"\n' + ENV)],
-      "environment.gravity", "an acceleration > 0", at='gravity = "9.8 m/s"',
+      "environment.gravity", "an acceleration in [0.01, 1000] m/s^2", at='gravity = "9.8 m/s"',
       words=("not an acceleration",)),
 
     # ------------------------------------------------------------ swing

@@ -107,7 +107,7 @@ def register(app: typer.Typer) -> None:
                 raise InvalidInput("--period", MISSING, "a target period, e.g. '2 s'",
                                    "required when the design has no swing.target_period")
             names = None if part is None else tuple(n.strip() for n in part.split(","))
-            with _app()._options_named(part="--part"):
+            with _app()._options_named(part="--part", **{"target period": "--period"}):
                 return tune_report(d, t, d.amplitudes_rad[0] if a is None else a, names)
 
         _run(design, fmt, output, force, build, gravity=gravity)

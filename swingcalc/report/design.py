@@ -222,7 +222,8 @@ def body_report(design) -> Report:
             Item("drag_coefficient_N_m_s2", "quadratic drag: torque / omega^2",
                  pend.air.drag_coefficient_N_m_s2, "N m s^2", fmt=".4g")]
     th = thermal_rate(pend)
-    summary += [Item("thermal_rate_s_per_day_per_K", "rate change with temperature",
+    summary += [Item("thermal_rate_s_per_day_per_K",
+                     "rate change with temperature (expansion; air density held)",
                      th.rate_s_per_day_per_K, "s/day/K", fmt=".4g"),
                 Item("plain_thermal_rate_s_per_day_per_K",
                      "the same, all of the arm's material", th.plain_rate_s_per_day_per_K,
@@ -362,7 +363,7 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
         notes = ["The period includes the air's buoyancy and added mass when air is on, and "
                  "the part positions at the working temperature."]
     return Report("tune", _title("Tuning for a target period", design), inputs, summary, [],
-                  notes=notes, cautions=cautions_for(design.context, loads=False))
+                  notes=notes, cautions=cautions_for(design.context, loads=True))
 
 
 def drop_report(design, energy: float | None, speed: float | None,
@@ -403,20 +404,25 @@ def limit_report(design, quantity: str, limit: float) -> Report:
     pend = design.pendulum
     points = design.points_dict()
     a = max_amplitude_for_limit(pend, quantity, limit, points)
+    unit = _unit_of(quantity)
+    key = f"limit_{quantity.rsplit('.', 1)[-1]}"
     summary = [Item("quantity", "limited quantity", quantity),
-               Item("limit", "limit (SI unit of the quantity)", limit, "", fmt=".6g")]
-    if a >= math.pi:
-        summary.append(Item("max_amplitude_deg", "largest amplitude", "any libration (< 180)",
-                            "deg"))
-        notes = ["The limit is not reached by any swing short of going over the top."]
+               Item(key, "limit", limit, unit, fmt=".6g")]
+    notes = []
+    flexible = pend.body.suspension.flexible
+    if a >= math.pi or (flexible and a == 0.5 * math.pi):
+        summary += [Item("max_amplitude_deg", "largest amplitude", a * _DEG, "deg", fmt=".8g"),
+                    Item("max_amplitude_rad", "largest amplitude", a, "rad", fmt=".10g")]
+        notes.append("The suspension goes slack beyond 90 deg: that, not this limit, bounds "
+                     "the swing." if flexible else
+                     "The limit is not reached by any swing short of going over the top.")
     else:
         peak = swing_loads(pend, a, points=points, samples=3).peak(quantity)
         summary += [Item("max_amplitude_deg", "largest amplitude", a * _DEG, "deg", fmt=".8g"),
                     Item("max_amplitude_rad", "largest amplitude", a, "rad", fmt=".10g"),
-                    Item("peak_at_limit", "peak there, recomputed", abs(peak.value), "",
-                         fmt=".10g"),
+                    Item(f"peak_at_limit_{quantity.rsplit('.', 1)[-1]}",
+                         "peak there, recomputed", abs(peak.value), unit, fmt=".10g"),
                     Item("period_s", "period there", period_at(pend, a), "s", fmt=".8g")]
-        notes = []
     return Report("limit", _title("Largest amplitude under a limit", design),
                   _design_inputs(design), summary, [], notes=notes,
                   cautions=cautions_for(design.context, loads=True))
@@ -448,11 +454,12 @@ def sensitivity_report(design, amplitude: float | None = None) -> Report:
                                 f"{design.rating.nut_pitch_m * 1e3:g} mm) lowering it",
                                 adj["rate_s_per_day_per_turn"], "s/day", fmt=".5g"))
     th = thermal_rate(pend)
-    summary.append(Item("thermal_rate_s_per_day_per_K", "rate change with temperature",
+    summary.append(Item("thermal_rate_s_per_day_per_K",
+                        "rate change with temperature (expansion; air density held)",
                         th.rate_s_per_day_per_K, "s/day/K", fmt=".4g"))
     table = Table("sensitivities", "Sensitivity of the period to each input", cols, rows)
     return Report("sensitivity", _title("Sensitivities", design), _design_inputs(design),
                   summary, [table],
                   notes=["Rate changes are positive when the clock gains; 'per unit' is per "
                          "SI unit of the input (m, kg, m/s^2, rad)."],
-                  cautions=cautions_for(design.context, loads=False))
+                  cautions=cautions_for(design.context, loads=True))
