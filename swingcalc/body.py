@@ -20,7 +20,7 @@ from .errors import MISSING, InvalidInput
 from .kernels import inertia as _shape
 
 __all__ = ["SHAPE_SIZES", "ORIENTATIONS", "MOUNTS", "PIVOT_KINDS", "SUSPENSION_KINDS", "Part",
-           "Pivot", "Suspension", "resolve_part",
+           "Pivot", "Suspension", "resolve_part", "with_parts",
            "PartProperties", "Body", "assemble", "point_bob", "scaled_for_temperature"]
 
 #: The size parameters [m] of each shape, in the order the shape kernel takes them.
@@ -201,6 +201,11 @@ class Body:
     volume_m3: float
     arm_expansion_per_K: float
     inputs: tuple = field(default=(), repr=False)   # the Part objects it was built from
+    # The parts and suspension as given (at the reference temperature), and how far the
+    # body is from that temperature [K]; `inputs` are the parts at this temperature.
+    reference: tuple = field(default=(), repr=False)
+    reference_suspension: Suspension | None = field(default=None, repr=False)
+    delta_t_K: float = 0.0
 
     def part(self, name: str) -> PartProperties:
         for p in self.parts:
@@ -211,7 +216,8 @@ class Body:
 
     def to_dict(self) -> dict:
         d = {k: v for k, v in self.__dict__.items()
-             if k not in ("parts", "suspension", "inputs")}
+             if k not in ("parts", "suspension", "inputs", "reference",
+                          "reference_suspension")}
         d["suspension"] = dict(self.suspension.__dict__)
         d["parts"] = [p.to_dict() for p in self.parts]
         return d
@@ -438,7 +444,8 @@ def assemble(parts, suspension: Suspension | None = None,
                 gyration_com_m=math.sqrt(i_com / mass), equivalent_length_m=l_eq,
                 centre_of_percussion_m=l_eq,
                 volume_m3=sum(p.volume_m3 for p in resolved),
-                arm_expansion_per_K=arm_expansion, inputs=parts)
+                arm_expansion_per_K=arm_expansion, inputs=parts, reference=parts,
+                reference_suspension=suspension)
 
 
 def _line(susp: Suspension, names) -> PartProperties:
@@ -495,4 +502,14 @@ def scaled_for_temperature(body: Body, delta_t: float, parts=None) -> Body:
     if susp.flexible:
         susp = replace(susp, length=susp.length * (1.0 + arm * dt),
                        mass_per_length=susp.mass_per_length / (1.0 + arm * dt))
-    return assemble(out, susp, arm_expansion=arm)
+    warm = assemble(out, susp, arm_expansion=arm)
+    return replace(warm, reference=body.reference, delta_t_K=body.delta_t_K + dt,
+                   reference_suspension=body.reference_suspension)
+
+
+def with_parts(body: Body, parts) -> Body:
+    """``body`` built again from other parts given at its reference temperature (a moved
+    bob, a changed size), brought to the same temperature as ``body``."""
+    fresh = assemble(parts, body.reference_suspension or body.suspension,
+                     body.arm_expansion_per_K)
+    return scaled_for_temperature(fresh, body.delta_t_K) if body.delta_t_K else fresh

@@ -77,11 +77,14 @@ class SwingLoads:
     horizontal and vertical parts (``reaction_x_N`` to the right, ``reaction_y_N`` up;
     the pivot carries the opposite). ``payload_tension_N`` (flexible suspension only):
     the tension at the payload end of the suspension; the suspension goes slack at
-    ``slack_angle_rad`` when that falls to zero before the end of the swing.
+    ``slack_angle_rad`` when that falls to zero before the end of the swing: the rows past
+    it (``taut`` False) are what the taut model would give, not what happens, and the
+    peaks are taken over the taut part of the swing only.
     """
 
     amplitude_rad: float
     angle_rad: np.ndarray
+    taut: np.ndarray                # False past the slack angle (the rows do not hold)
     angular_speed_rad_s: np.ndarray
     angular_acceleration_rad_s2: np.ndarray
     arm_tension_N: np.ndarray
@@ -262,11 +265,6 @@ def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,
     if n % 2:
         theta[n // 2] = 0.0
     series = _series(pend, a, theta, points)
-    fine = np.linspace(-a, a, _REFINE_SAMPLES)
-    fine_series = _series(pend, a, fine, points)
-    peaks = tuple(_peak(pend, a, points, key, fine, values)
-                  for key, values in fine_series.items()
-                  if key not in ("potential_energy_J", "kinetic_energy_J"))
     k = pend.restoring_moment_N_m / pend.inertia_kg_m2
     energy = 2.0 * pend.restoring_moment_N_m * math.sin(0.5 * a) ** 2
     flexible = pend.body.suspension.flexible
@@ -275,6 +273,14 @@ def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,
     if flexible and a > 0.5 * math.pi:
         _, d_p = _payload(pend)
         slack = math.acos(2.0 * d_p * k * math.cos(a) / (2.0 * d_p * k + pend.gravity_m_s2))
+    # Peaks only where the model holds: a slack suspension's payload falls freely.
+    reach = a if slack is None else slack
+    fine = np.linspace(-reach, reach, _REFINE_SAMPLES)
+    fine_series = _series(pend, a, fine, points)
+    peaks = tuple(_peak(pend, a, points, key, fine, values)
+                  for key, values in fine_series.items()
+                  if key not in ("potential_energy_J", "kinetic_energy_J"))
+    if slack is not None:
         warnings.append(
             f"the suspension goes slack at {math.degrees(slack):.2f} deg, before the end "
             f"of the {math.degrees(a):.2f} deg swing: the payload then falls freely and "
@@ -292,6 +298,8 @@ def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,
                         "sends the body over the top")
     return SwingLoads(
         amplitude_rad=a, angle_rad=theta,
+        taut=(np.ones(theta.shape, dtype=bool) if slack is None
+              else np.abs(theta) <= slack),
         angular_speed_rad_s=series["angular_speed_rad_s"],
         angular_acceleration_rad_s2=series["angular_acceleration_rad_s2"],
         arm_tension_N=series["arm_tension_N"],

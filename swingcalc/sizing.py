@@ -15,7 +15,7 @@ import math
 from dataclasses import dataclass, replace
 
 from ._validate import amplitude_scalar, positive_scalar
-from .body import assemble
+from .body import with_parts
 from .compound import CompoundPendulum, rebuilt
 from .constants import SECONDS_PER_DAY
 from .errors import InvalidInput, SolverFailure
@@ -83,7 +83,7 @@ class PositionSolution:
 def _names(body, parts) -> tuple:
     """The parts to move, as a tuple of names (one name or several), checked."""
     names = (parts,) if isinstance(parts, str) else tuple(parts)
-    known = [p.name for p in body.inputs]
+    known = [p.name for p in body.reference]
     for n in names:
         if n not in known:
             raise InvalidInput("part", n, "one of " + ", ".join(known), "no such part")
@@ -95,8 +95,8 @@ def _names(body, parts) -> tuple:
 def _moved(body, names: tuple, shift: float):
     """The body with the named parts moved by ``shift`` [m] along the arm."""
     parts = tuple(replace(p, position=p.position + shift) if p.name in names else p
-                  for p in body.inputs)
-    return assemble(parts, body.suspension, body.arm_expansion_per_K)
+                  for p in body.reference)
+    return with_parts(body, parts)
 
 
 def position_for_period(pend: CompoundPendulum, part, target_period: float,
@@ -131,7 +131,7 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
     a = amplitude_scalar(amplitude)
     body = pend.body
     names = _names(body, part)
-    now = next(p for p in body.inputs if p.name == names[0]).position
+    now = next(p for p in body.reference if p.name == names[0]).position
     reach = max(max(abs(p.centre_along_m) + 0.5 * p.extent_along_m for p in body.parts),
                 2.0 * abs(now))
     lo = -reach if lowest is None else float(lowest)
@@ -308,8 +308,7 @@ def sensitivities(pend: CompoundPendulum, amplitude: float) -> tuple:
     out = []
 
     def period_with(parts=None, gravity=g, amp=a):
-        b = body if parts is None else assemble(parts, body.suspension,
-                                                body.arm_expansion_per_K)
+        b = body if parts is None else with_parts(body, parts)
         p = rebuilt(pend, b, gravity)
         return p.small_angle_period_s * (ratio if amp == a else _ratio(amp))
 
@@ -321,11 +320,12 @@ def sensitivities(pend: CompoundPendulum, amplitude: float) -> tuple:
             return
         out.append(Sensitivity(label, x, unit, d, d * x / t0, -SECONDS_PER_DAY * d / t0))
 
-    for i, p in enumerate(body.inputs):
+    ref = body.reference
+    for i, p in enumerate(ref):
         for label, unit, x, change in _part_inputs(body, p):
             diff(f"part.{p.name}.{label}", unit, x,
                  lambda v, i=i, p=p, change=change: period_with(
-                     body.inputs[:i] + (replace(p, **change(v)),) + body.inputs[i + 1:]))
+                     ref[:i] + (replace(p, **change(v)),) + ref[i + 1:]))
     diff("environment.gravity", "m/s^2", g, lambda x: period_with(gravity=x))
     if a > 0.0:
         diff("swing.amplitude", "rad", a, lambda x: period_with(amp=x))

@@ -157,7 +157,7 @@ UNIT_SUFFIXES = ("_s", "_m", "_kg", "_N", "_J", "_rad", "_deg", "_degC", "_K", "
                  "_per_weight", "_margin")
 # Text fields.
 TEXT_KEYS = {"design_name", "design_source", "revision", "date", "context", "suspension",
-             "part", "parts", "shape", "material", "quantity", "input", "unit"}
+             "part", "parts", "shape", "material", "quantity", "input", "unit", "taut"}
 # Keys whose unit is named by a sibling field of the same row or report: the sensitivity
 # table ("unit" column), the peaks table and the limit report ("quantity", e.g.
 # "reaction_N"). Listed here, and in the report, as a doubt about the convention.

@@ -241,3 +241,17 @@ def test_samples_out_of_range_are_refused():
     for n in (2, 0, 10 ** 6, 3.5, True):
         with pytest.raises(InvalidInput, match="samples"):
             swing_loads(pend, 0.5, samples=n)
+
+
+def test_rows_past_the_slack_angle_are_flagged_and_left_out_of_the_peaks():
+    """A point mass on a chain at 120 deg goes slack at 109.47 deg (REFERENCES.md): the
+    rows beyond are not taut (there the taut model's tension is negative), the taut rows
+    carry tension, and the peaks come from the taut part only."""
+    pend = compound_pendulum(assemble(*point_bob(1.0, 1.0, "chain")), G)
+    loads = swing_loads(pend, math.radians(120), samples=121)
+    past = np.abs(loads.angle_rad) > loads.slack_angle_rad
+    assert np.all(~loads.taut[past]) and np.all(loads.taut[~past])
+    assert np.all(loads.payload_tension_N[past] < 0)
+    assert np.all(loads.payload_tension_N[~past] >= -1e-12)
+    for p in loads.peaks:
+        assert abs(p.angle_rad) <= loads.slack_angle_rad * (1 + 1e-15), p.quantity

@@ -182,3 +182,31 @@ def test_rating_moves_the_bob_and_its_nut_together():
              Part("nut", "point", position=sn + sol.move_m, mass=mn)]
     assert compound_pendulum(assemble(moved), G).small_angle_period_s == pytest.approx(
         2.0, rel=1e-12)
+
+
+def test_tuning_at_another_temperature_gives_the_position_to_write_in_the_file():
+    """The bundled clock at 30 degC: the tuned position is for the file (sizes at the
+    reference 20 degC); writing it back and rebuilding at 30 degC gives the target period
+    (1e-12), and the sensitivities keep their meaning (rod diameter within 1 % of the
+    20 degC value: the temperature changes sizes by ~1e-4)."""
+    import re
+
+    from swingcalc import examples
+    from swingcalc.designfile import parse_design
+
+    text = examples.text().replace('temperature = "20 degC"', 'temperature = "30 degC"')
+    warm = parse_design(text)
+    a = warm.amplitudes_rad[1]
+    sol = position_for_period(warm.pendulum, warm.rating.parts, 2.0, a)
+    centre = re.search(r'centre = "([0-9.]+) mm"', text).group(1)
+    nut = re.search(r'top = "([0-9.]+) mm"            # under', text).group(1)
+    moved = (text.replace(f'centre = "{centre} mm"', f'centre = "{sol.position_m!r} m"')
+             .replace(f'top = "{nut} mm"', f'top = "{float(nut) * 1e-3 + sol.move_m!r} m"'))
+    again = parse_design(moved)
+    assert period_at(again.pendulum, a) == pytest.approx(2.0, rel=1e-12)
+    cold = parse_design(examples.text())
+    s_warm = {s.input: s for s in sensitivities(warm.pendulum, a)}
+    s_cold = {s.input: s for s in sensitivities(cold.pendulum, a)}
+    assert set(s_warm) == set(s_cold)
+    assert s_warm["part.rod.diameter"].period_per_unit == pytest.approx(
+        s_cold["part.rod.diameter"].period_per_unit, rel=1e-2)

@@ -265,9 +265,9 @@ def loads_report(design, amplitude: float | None = None,
               loads.reaction_tangential_N, loads.reaction_N, loads.reaction_x_N,
               loads.reaction_y_N, loads.kinetic_energy_J, loads.potential_energy_J]
     if flexible:
-        cols.append(Column("payload_tension_N", "suspension tension at payload", "N",
-                           fmt=".6g"))
-        series.append(loads.payload_tension_N)
+        cols += [Column("payload_tension_N", "suspension tension at payload", "N", fmt=".6g"),
+                 Column("taut", "taut (model holds)")]
+        series += [loads.payload_tension_N, loads.taut]
     for pm in loads.points:
         cols += [Column(f"{pm.name}.speed_m_s", f"{pm.name}: speed", "m/s", fmt=".4g"),
                  Column(f"{pm.name}.felt_normal_g", f"{pm.name}: felt normal", "g", fmt=".4g"),
@@ -275,7 +275,7 @@ def loads_report(design, amplitude: float | None = None,
                         fmt=".3g"),
                  Column(f"{pm.name}.felt_g", f"{pm.name}: felt total", "g", fmt=".4g")]
         series += [pm.speed_m_s, pm.felt_normal_g, pm.felt_tangential_g, pm.felt_g]
-    rows = tuple(zip(*[np.asarray(s, dtype=float).tolist() for s in series]))
+    rows = tuple(zip(*[np.asarray(s).tolist() for s in series]))
     peaks = Table("peaks", "Peaks over the swing (largest magnitude, and where)",
                   (Column("quantity", "quantity"), Column("value", "value", fmt=".6g"),
                    Column("unit", "unit"),
@@ -345,7 +345,7 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
                                + ", ".join(p.name for p in design.parts),
                                "required for a design of parts without a [rating] part")
         sol = position_for_period(pend, name, target, amplitude)
-        at = next(p.at for p in pend.body.inputs if p.name == sol.parts[0])
+        at = next(p.at for p in pend.body.reference if p.name == sol.parts[0])
         zero = position_for_period(pend, name, target, 0.0)
         summary = [Item("parts", "moved", ", ".join(sol.parts)),
                    Item("position_m", f"new position of {sol.parts[0]} (its {at})",
