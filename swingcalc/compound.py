@@ -31,6 +31,10 @@ __all__ = ["AIR_VISCOSITY", "AirTerms", "CompoundPendulum", "ThermalRate", "comp
            "GRAVITY_RANGE", "air_terms", "rebuilt", "thermal_rate"]
 
 
+_PER_PART = ("part", "buoyancy_moment_N_m", "added_inertia_kg_m2", "drag_coefficient_N_m_s2",
+             "flow", "drag_cd", "added_volume_m3")
+
+
 @dataclass(frozen=True)
 class AirTerms:
     """What the air does to a body: SI values."""
@@ -39,12 +43,11 @@ class AirTerms:
     buoyancy_moment_N_m: float       # reduction of the restoring moment (rho V d g summed)
     added_inertia_kg_m2: float       # air carried along, about the pivot
     drag_coefficient_N_m_s2: float   # D in the drag torque -D omega |omega|
-    per_part: tuple                  # (name, buoyancy moment, added inertia, D) per part
+    per_part: tuple                  # per part: _PER_PART (flow: the fluids row used)
 
     def to_dict(self) -> dict:
         d = dict(self.__dict__)
-        d["per_part"] = [dict(zip(("part", "buoyancy_moment_N_m", "added_inertia_kg_m2",
-                                   "drag_coefficient_N_m_s2"), row)) for row in self.per_part]
+        d["per_part"] = [dict(zip(_PER_PART, row)) for row in self.per_part]
         return d
 
 
@@ -97,7 +100,9 @@ def air_terms(body: Body, air_density: float, gravity: float = STANDARD_GRAVITY,
         else:
             drag = 0.5 * rho * c.drag_coefficient * c.drag_area_m2 * math.sqrt(r2) ** 3
         moment_arm = s * cos_t + u * sin_t
-        rows.append((p.name, rho * gravity * p.volume_m3 * moment_arm, added, drag))
+        rows.append((p.name, rho * gravity * p.volume_m3 * moment_arm, added, drag,
+                     " ".join(x for x in c.flow if x), c.drag_coefficient,
+                     c.added_volume_m3))
     return AirTerms(air_density_kg_m3=rho,
                     buoyancy_moment_N_m=sum(r[1] for r in rows),
                     added_inertia_kg_m2=sum(r[2] for r in rows),
@@ -272,6 +277,7 @@ class _AirModel:
     drag_coefficient: float
     drag_area_m2: float         # reference area (compact part) or width per length (spread)
     spread_along_arm: bool
+    flow: tuple = ("", "")      # (shape, direction) of the swingcalc.fluids rows used
 
 
 _EDGE_RE = (1e3, 5e5)           # the laminar skin-friction range of fluids.friction_drag_...
@@ -298,32 +304,37 @@ def _air_model(p, rho, mu, angular_speed) -> _AirModel:
     speed = None if angular_speed is None else angular_speed * math.hypot(
         p.centre_along_m, p.centre_across_m)
 
+    flat = "disc" if p.shape == "disc" else "plate"
+
     def friction(area, length):
         return _AirModel(0.0, f.friction_drag_coefficient(_reynolds(length, speed, rho, mu)),
-                         area, False)
+                         area, False, (flat, "edgewise"))
 
     if p.shape in ("rod", "tube"):
         d = sz.get("diameter", sz.get("outer_diameter"))
         length = sz["length"]
         return _AirModel(f.added_mass("cylinder", "across", 1.0, radius=0.5 * d, length=length),
                          f.drag_coefficient("cylinder", "across",
-                                            aspect_ratio=max(length / d, 1.0)), d, True)
+                                            aspect_ratio=max(length / d, 1.0)), d, True,
+                         ("cylinder", "across"))
     if p.shape == "flat_bar":
         re = _reynolds(sz["width"], speed, rho, mu)
-        return _AirModel(0.0, f.friction_drag_coefficient(re), sz["width"], True)
+        return _AirModel(0.0, f.friction_drag_coefficient(re), sz["width"], True,
+                         ("plate", "edgewise"))
     if p.shape == "plate":
         w, h = sz["width"], sz["height"]
         if o == "swing":
             return _AirModel(f.added_mass("plate", "broadside", 1.0, length=h, width=w),
                              f.drag_coefficient("plate", "broadside",
                                                 aspect_ratio=max(w, h) / min(w, h)),
-                             w * h, False)
+                             w * h, False, ("plate", "broadside"))
         return friction(w * h, w)
     if p.shape == "disc":
         r = 0.5 * sz["diameter"]
         if o == "swing":
             return _AirModel(f.added_mass("disc", "broadside", 1.0, radius=r),
-                             f.drag_coefficient("disc", "broadside"), math.pi * r * r, False)
+                             f.drag_coefficient("disc", "broadside"), math.pi * r * r, False,
+                             ("disc", "broadside"))
         return friction(math.pi * r * r, 2.0 * r)
     if p.shape == "cylinder":
         r, length = 0.5 * sz["diameter"], sz["length"]
@@ -332,23 +343,25 @@ def _air_model(p, rho, mu, angular_speed) -> _AirModel:
                              f.drag_coefficient("cylinder", "along",
                                                 aspect_ratio=min(max(length / (2 * r), 0.5),
                                                                  8.0)),
-                             math.pi * r * r, False)
+                             math.pi * r * r, False, ("cylinder", "along"))
         return _AirModel(f.added_mass("cylinder", "across", 1.0, radius=r, length=length),
                          f.drag_coefficient("cylinder", "across",
                                             aspect_ratio=max(length / (2 * r), 1.0)),
-                         2.0 * r * length, False)
+                         2.0 * r * length, False, ("cylinder", "across"))
     if p.shape == "sphere":
         r = 0.5 * sz["diameter"]
         return _AirModel(f.added_mass("sphere", None, 1.0, radius=r),
-                         f.drag_coefficient("sphere"), math.pi * r * r, False)
+                         f.drag_coefficient("sphere"), math.pi * r * r, False,
+                         ("sphere", "any"))
     if p.shape == "lens":
         r, thick = 0.5 * sz["diameter"], sz["thickness"]
         if o == "swing":
             return _AirModel(f.added_mass("lens", "broadside", 1.0, radius=r, thickness=thick),
-                             f.drag_coefficient("lens", "broadside"), math.pi * r * r, False)
+                             f.drag_coefficient("lens", "broadside"), math.pi * r * r, False,
+                             ("lens", "broadside"))
         m = _AirModel(f.added_mass("lens", "edgewise", 1.0, radius=r, thickness=thick),
                       0.0, math.pi * r * r, False)
         return _AirModel(m.added_volume_m3,
                          f.friction_drag_coefficient(_reynolds(2 * r, speed, rho, mu)),
-                         m.drag_area_m2, False)
+                         m.drag_area_m2, False, ("lens", "edgewise"))
     return _AirModel(0.0, 0.0, 0.0, False)      # point, custom, suspension line

@@ -154,10 +154,10 @@ def test_all_bundled_examples_are_covered():
 UNIT_SUFFIXES = ("_s", "_m", "_kg", "_N", "_J", "_rad", "_deg", "_degC", "_K", "_hz",
                  "_m_s", "_rad_s", "_rad_s2", "_m_s2", "_kg_m2", "_kg_m3", "_m3", "_per_K",
                  "_g", "_rel", "_ratio", "_hour", "_day", "_mm", "_turn", "_N_m_s2",
-                 "_per_weight", "_margin")
+                 "_per_weight", "_margin", "_cd")
 # Text fields.
 TEXT_KEYS = {"design_name", "design_source", "revision", "date", "context", "suspension",
-             "part", "parts", "shape", "material", "quantity", "input", "unit", "taut"}
+             "part", "parts", "shape", "material", "quantity", "input", "unit", "taut", "flow"}
 # Keys whose unit is named by a sibling field of the same row or report: the sensitivity
 # table ("unit" column), the peaks table and the limit report ("quantity", e.g.
 # "reaction_N"). Listed here, and in the report, as a doubt about the convention.
@@ -301,8 +301,13 @@ def test_csv_body_equals_the_library(name):
     """Plumbing: each part's mass and inertia, and the body's equivalent length, as the
     assembled body of swingcalc.designfile.load_design gives them."""
     body = design(name).pendulum.body
-    meta, (rows,) = parse_csv(output(f"body-{name[:-5]}", "csv"))
+    meta, (rows, *air) = parse_csv(output(f"body-{name[:-5]}", "csv"))
     assert [r["part"] for r in rows] == [p.name for p in body.parts]
+    if air:                     # the air table, when air is on: one row per part
+        (air_rows,) = air
+        d = design(name).pendulum.air
+        assert [_f(r["drag_coefficient_N_m_s2"]) for r in air_rows] == [
+            row[3] for row in d.per_part]
     for r, p in zip(rows, body.parts):
         assert _f(r["mass_kg"]) == p.mass_kg
         assert _f(r["inertia_pivot_kg_m2"]) == p.inertia_pivot_kg_m2

@@ -237,8 +237,45 @@ def body_report(design) -> Report:
     if b.suspension.flexible:
         notes.append(_FLEXIBLE_NOTE)
     table = Table("parts", "Parts (the suspension line last, if flexible)", cols, rows)
-    return Report("body", _title("Body", design), _design_inputs(design), summary, [table],
+    tables = [table]
+    if design.environment.air:
+        tables.append(_air_table(pend))
+        notes.append("Air coefficients: the swingcalc.fluids rows named under 'flow' (a "
+                     "part moving along the swing's direction at the bottom); sources: "
+                     + "; ".join(_air_sources(pend)) + ". See docs/methods/air.md.")
+    return Report("body", _title("Body", design), _design_inputs(design), summary, tables,
                   notes=notes, cautions=cautions_for(design.context, loads=True))
+
+
+def _air_table(pend) -> Table:
+    cols = (Column("part", "part"), Column("flow", "meets the air as"),
+            Column("drag_cd", "drag coefficient C_d", fmt=".3g"),
+            Column("drag_coefficient_N_m_s2", "drag torque / omega^2", "N m s^2", fmt=".3g"),
+            Column("added_volume_m3", "added mass / air density", "L", 1e3, ".3g"),
+            Column("added_inertia_kg_m2", "added inertia", "kg m^2", fmt=".3g"),
+            Column("buoyancy_moment_N_m", "buoyancy moment", "N m", fmt=".3g"))
+    rows = tuple((r[0], r[4] or "-", r[5], r[3], r[6], r[2], r[1])
+                 for r in pend.air.per_part)
+    return Table("air", "Air on each part", cols, rows)
+
+
+def _air_sources(pend) -> list[str]:
+    """The sources of the fluid-table rows the parts use (each named once)."""
+    from .. import fluids
+
+    out = []
+    for r in pend.air.per_part:
+        if not r[4]:
+            continue
+        shape, direction = r[4].split(" ")
+        for getter in (fluids.added_mass_entry, fluids.drag_entry):
+            try:
+                src = getter(shape, None if shape == "sphere" else direction).source
+            except (KeyError, ValueError):
+                continue
+            if src not in out:
+                out.append(src)
+    return out
 
 
 def loads_report(design, amplitude: float | None = None,
@@ -270,11 +307,20 @@ def loads_report(design, amplitude: float | None = None,
         series += [loads.payload_tension_N, loads.taut]
     for pm in loads.points:
         cols += [Column(f"{pm.name}.speed_m_s", f"{pm.name}: speed", "m/s", fmt=".4g"),
+                 Column(f"{pm.name}.acceleration_m_s2", f"{pm.name}: acceleration", "m/s^2",
+                        fmt=".4g"),
+                 Column(f"{pm.name}.tangential_acceleration_m_s2",
+                        f"{pm.name}: tangential acceleration", "m/s^2", in_text=False),
+                 Column(f"{pm.name}.normal_acceleration_m_s2",
+                        f"{pm.name}: acceleration toward the pivot", "m/s^2", in_text=False),
                  Column(f"{pm.name}.felt_normal_g", f"{pm.name}: felt normal", "g", fmt=".4g"),
                  Column(f"{pm.name}.felt_tangential_g", f"{pm.name}: felt along", "g",
                         fmt=".3g"),
                  Column(f"{pm.name}.felt_g", f"{pm.name}: felt total", "g", fmt=".4g")]
-        series += [pm.speed_m_s, pm.felt_normal_g, pm.felt_tangential_g, pm.felt_g]
+        series += [pm.speed_m_s, np.hypot(pm.tangential_acceleration_m_s2,
+                                          pm.normal_acceleration_m_s2),
+                   pm.tangential_acceleration_m_s2, pm.normal_acceleration_m_s2,
+                   pm.felt_normal_g, pm.felt_tangential_g, pm.felt_g]
     rows = tuple(zip(*[np.asarray(s).tolist() for s in series]))
     peaks = Table("peaks", "Peaks over the swing (largest magnitude, and where)",
                   (Column("quantity", "quantity"), Column("value", "value", fmt=".6g"),
