@@ -177,12 +177,12 @@ def test_drag_of_a_rod_integrates_its_width_along_the_arm():
     rho, L, w = 1.2, 1.0, 0.01
     b = assemble([rod(L, w)])
     p = compound_pendulum(b, G, rho)
-    cd = p.air.drag_coefficient_N_m_s2 / (0.5 * rho * w * L ** 4 / 4)
+    # White, Fluid Mechanics, Table 7.3 [mem]: a cylinder in cross-flow, L/D = 40: 0.98,
+    # L/D -> inf: 1.20; this rod has L/D = 100, so C_d lies between them
     n = 100_000
     strips = sum(((i + 0.5) * L / n) ** 3 for i in range(n)) * (L / n)
-    assert p.air.drag_coefficient_N_m_s2 == pytest.approx(0.5 * rho * cd * w * strips,
-                                                          rel=1e-9)
-    assert 0.6 < cd < 1.3       # cylinder in cross-flow (REFERENCES.md: about 1.0-1.2)
+    lo, hi = (0.5 * rho * cd * w * strips for cd in (0.98, 1.20))
+    assert lo * (1 - 1e-9) <= p.air.drag_coefficient_N_m_s2 <= hi * (1 + 1e-9)
 
 
 def test_simple_pendulum_rate_change_with_temperature_is_half_the_expansion():
