@@ -16,7 +16,7 @@ import math
 from dataclasses import dataclass, field, replace
 
 from ._validate import finite_result, positive_scalar, real_scalar
-from .errors import MISSING, InvalidInput
+from .errors import MISSING, InvalidInput, suggest
 from .kernels import inertia as _shape
 
 __all__ = ["SHAPE_SIZES", "ORIENTATIONS", "MOUNTS", "PIVOT_KINDS", "SUSPENSION_KINDS", "Part",
@@ -239,8 +239,6 @@ def _where(p: Part, key: str) -> str:
 def resolve_part(p: Part) -> PartProperties:
     """Validate one part and compute its properties (errors name ``part '<name>': <field>``)."""
     if p.shape not in SHAPE_SIZES:
-        from .quantity import suggest
-
         raise InvalidInput(_where(p, "shape"), p.shape, ", ".join(SHAPE_SIZES),
                            f"unknown shape{suggest(p.shape, SHAPE_SIZES)}")
     if p.at not in MOUNTS:
@@ -332,8 +330,6 @@ def _sizes(p: Part) -> dict:
     names = SHAPE_SIZES[p.shape]
     extra = sorted(set(p.size) - set(names))
     if extra:
-        from .quantity import suggest
-
         raise InvalidInput(_where(p, extra[0]), p.size[extra[0]],
                            f"the sizes of a {p.shape}: " + ", ".join(names),
                            f"not a size of a {p.shape}{suggest(extra[0], names)}")
@@ -421,9 +417,11 @@ def assemble(parts, suspension: Suspension | None = None,
     inertia = sum(p.inertia_pivot_kg_m2 for p in resolved)
     if not (s > 0.0 and d > 1e-9 * math.sqrt(inertia / mass)):
         raise InvalidInput("parts", MISSING,
-                           "a centre of mass below the pivot (positive along the arm)",
+                           "a centre of mass below the pivot (positive along the arm): put "
+                           "the heavy parts below it",
                            f"the centre of mass is at {s:.6g} m along the arm, {u:.6g} m "
-                           "across: the body does not hang below the pivot")
+                           "across: the body does not hang below the pivot as drawn (it "
+                           "would hang the other way up, or balance)")
     # About the centre of mass directly (I_O - m d^2 would leave rounding for a point bob).
     i_com = sum(p.own_inertia_kg_m2 + p.mass_kg * ((p.centre_along_m - s) ** 2
                                                    + (p.centre_across_m - u) ** 2)

@@ -16,16 +16,16 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from ._validate import amplitude_scalar, positive_scalar, real_scalar
+from ._validate import amplitude_scalar, real_scalar
 from .body import Body, scaled_for_temperature
-from .constants import SECONDS_PER_DAY, STANDARD_GRAVITY
-from .errors import InvalidInput
+from .constants import ISA_SEA_LEVEL_VISCOSITY, SECONDS_PER_DAY, STANDARD_GRAVITY
+from .errors import MISSING, InvalidInput
 
 #: Gravity the model accepts [m/s^2]: from a small moon's to far past Jupiter's 24.8
 #: (outside it the results are not what anyone means, and the numbers overflow).
 GRAVITY_RANGE = (0.01, 1000.0)
 #: Viscosity of air used when none is given [Pa s]: ISA sea level (ISO 2533).
-AIR_VISCOSITY = 1.7894e-5
+AIR_VISCOSITY = ISA_SEA_LEVEL_VISCOSITY
 
 __all__ = ["AIR_VISCOSITY", "AirTerms", "CompoundPendulum", "ThermalRate", "compound_pendulum",
            "GRAVITY_RANGE", "air_terms", "rebuilt", "thermal_rate"]
@@ -189,9 +189,12 @@ def compound_pendulum(body: Body, gravity: float = STANDARD_GRAVITY,
     air = air_terms(body, air_density, g, air_viscosity, speed)
     moment = m_vac - air.buoyancy_moment_N_m
     if not moment > 0.0:
-        raise InvalidInput("air density", air.air_density_kg_m3,
-                           "a fluid lighter than the body",
-                           "the buoyancy cancels the weight's restoring moment")
+        raise InvalidInput("parts", MISSING,
+                           "parts heavier than the air they displace (check the volumes and "
+                           "densities given)",
+                           f"the buoyancy of {body.volume_m3:.6g} m^3 in air of "
+                           f"{air.air_density_kg_m3:.6g} kg/m^3 cancels the weight's "
+                           "restoring moment")
     inertia = body.inertia_pivot_kg_m2 + air.added_inertia_kg_m2
     t_vac = 2.0 * math.pi * math.sqrt(body.inertia_pivot_kg_m2 / m_vac)
     shift_b = math.sqrt(m_vac / moment) - 1.0

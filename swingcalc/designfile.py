@@ -61,7 +61,7 @@ from .body import (MOUNTS, ORIENTATIONS, PIVOT_KINDS, SHAPE_SIZES, SUSPENSION_KI
                    Pivot, Suspension, assemble, point_bob, resolve_part,
                    scaled_for_temperature)
 from .compound import GRAVITY_RANGE
-from .constants import STANDARD_GRAVITY
+from .constants import ISA_SEA_LEVEL_VISCOSITY, STANDARD_GRAVITY
 from .errors import MISSING, InvalidInput
 from .quantity import parse_quantity, parse_values, suggest
 
@@ -148,7 +148,7 @@ class Environment:
     relative_humidity: float = 0.0
     air: bool = False
     air_density_kg_m3: float = 0.0
-    air_viscosity_Pa_s: float = 1.7894e-5     # ISA sea level (ISO 2533)
+    air_viscosity_Pa_s: float = ISA_SEA_LEVEL_VISCOSITY
 
     def to_dict(self) -> dict:
         return dict(self.__dict__)
@@ -656,8 +656,10 @@ def _parts(r: _Reader, suspension: Suspension) -> tuple:
 def _part_error(r: _Reader, sid: str, t: dict, part: Part, exc: InvalidInput) -> InvalidInput:
     """A body-model error about a part, pointed at the file's field and its text."""
     key = exc.field.split(": ", 1)[-1]
-    if key == "size":                  # about the part's sizes as a whole: the first one
-        key = next((k for k in SHAPE_SIZES[part.shape] if k in t), "shape")
+    if key == "size":                  # about the part's sizes as a whole: the largest one
+        given = {**part.size, "mass": part.mass or 0.0, "across": part.across,
+                 part.at: part.position}
+        key = max((k for k in given if k in t), key=lambda k: abs(given[k]), default="shape")
     if key not in t and key == "mass" and "density" in t:
         key = "density"
     value = t[key] if key in t else exc.value

@@ -8,7 +8,7 @@ as it is.
 
 from __future__ import annotations
 
-__all__ = ["SwingcalcError", "InvalidInput", "SolverFailure", "MISSING"]
+__all__ = ["SwingcalcError", "InvalidInput", "SolverFailure", "MISSING", "suggest"]
 
 
 class _Missing:
@@ -66,3 +66,24 @@ class SolverFailure(SwingcalcError, RuntimeError):
 def _short(value: object, limit: int = 60) -> str:
     text = repr(value)
     return text if len(text) <= limit else text[: limit - 3] + "..."
+
+
+def suggest(word, choices, fallback=()) -> str:
+    """``"; did you mean 'x'?"`` for the closest of ``choices`` (then of ``fallback``), or ``""``.
+
+    A match that differs only in case wins outright; otherwise up to three close matches
+    are offered.
+    """
+    import difflib
+
+    word = str(word)
+    pool = list(choices)
+    exact = [c for c in pool if c.lower() == word.lower()]
+    if exact:
+        return f"; did you mean '{exact[0]}'?"
+    close = difflib.get_close_matches(word, pool, n=3, cutoff=0.5)
+    if not close and fallback:
+        close = difflib.get_close_matches(word, list(fallback), n=3, cutoff=0.75)
+    if not close:
+        return ""
+    return "; did you mean " + " or ".join(f"'{c}'" for c in close) + "?"

@@ -26,7 +26,6 @@ value written from memory of the named source and not re-checked against it. Met
 
 from __future__ import annotations
 
-import difflib
 import math
 from dataclasses import dataclass
 from types import MappingProxyType
@@ -34,7 +33,7 @@ from types import MappingProxyType
 import numpy as np
 
 from ._validate import positive_scalar, real_scalar
-from .errors import InvalidInput
+from .errors import InvalidInput, suggest
 
 __all__ = [
     "ADDED_MASS",
@@ -216,16 +215,11 @@ def _interp_inverse(table, ratio):
     return float(np.interp(1.0 / ratio, xs, ys))
 
 
-def _hint(word, choices):
-    close = difflib.get_close_matches(str(word), list(choices), n=3, cutoff=0.5)
-    return ("; did you mean " + " or ".join(f"'{c}'" for c in close) + "?") if close else ""
-
-
 def _shape_direction(shape, direction):
     """Normalise and check (shape, direction); "rod" is the cylinder."""
     if not isinstance(shape, str) or shape.strip().lower() not in SHAPES:
         raise InvalidInput("shape", shape, "one of: " + ", ".join(SHAPES),
-                           f"unknown shape{_hint(shape, SHAPES)}")
+                           f"unknown shape{suggest(shape, SHAPES)}")
     s = shape.strip().lower()
     base = "cylinder" if s == "rod" else s
     if base == "sphere":
@@ -239,7 +233,7 @@ def _shape_direction(shape, direction):
         what = ("'along' or 'across' its axis" if base in _AXIAL
                 else "'broadside' (moving face-on) or 'edgewise' (moving in its own plane)")
         raise InvalidInput("direction", direction, f"for a {s}: {what}",
-                           f"not a direction for a {s}{_hint(direction, words)}"
+                           f"not a direction for a {s}{suggest(direction, words)}"
                            if isinstance(direction, str) else None)
     return base, direction
 

@@ -9,12 +9,11 @@ drawing should quote the supplier's figure when the rate matters. Method note:
 
 from __future__ import annotations
 
-import difflib
 import math
 from dataclasses import dataclass
 from types import MappingProxyType
 
-from .errors import InvalidInput
+from .errors import InvalidInput, suggest
 
 __all__ = ["MATERIALS", "PHASES", "Material", "material", "material_names"]
 
@@ -183,8 +182,5 @@ def material(name):
     try:
         return MATERIALS[key]
     except KeyError:
-        close = difflib.get_close_matches(key, list(MATERIALS) + list(_ALIASES), n=3,
-                                          cutoff=0.6)
-        close = list(dict.fromkeys(_ALIASES.get(c, c) for c in close))
-        hint = ("; did you mean " + " or ".join(f"'{c}'" for c in close) + "?") if close else ""
+        hint = suggest(key, MATERIALS, fallback=_ALIASES)
         raise InvalidInput("material", name, allowed, f"unknown material{hint}") from None

@@ -17,14 +17,13 @@ when it falls on the grid) and mixtures, with a trailing unit applying to bare p
 
 from __future__ import annotations
 
-import difflib
 import math
 import re
 from dataclasses import dataclass
 
 import numpy as np
 
-from .errors import MISSING, InvalidInput
+from .errors import MISSING, InvalidInput, suggest
 
 __all__ = ["KINDS", "parse_quantity", "parse_values", "split_magnitude", "suggest"]
 
@@ -187,25 +186,6 @@ def _check_unit_text(unit: str, field: str, original: str, allowed: str) -> None
                            "numbers may appear in a unit only as exponents ('m/s^2')")
 
 
-def suggest(word, choices, fallback=()) -> str:
-    """``"; did you mean 'x'?"`` for the closest of ``choices`` (then of ``fallback``), or ``""``.
-
-    A match that differs only in case wins outright; otherwise up to three close matches
-    are offered.
-    """
-    word = str(word)
-    pool = list(choices)
-    exact = [c for c in pool if c.lower() == word.lower()]
-    if exact:
-        return f"; did you mean '{exact[0]}'?"
-    close = difflib.get_close_matches(word, pool, n=3, cutoff=0.5)
-    if not close and fallback:
-        close = difflib.get_close_matches(word, list(fallback), n=3, cutoff=0.75)
-    if not close:
-        return ""
-    return "; did you mean " + " or ".join(f"'{c}'" for c in close) + "?"
-
-
 def _parse_unit(unit: str, k: Kind, field: str, original: str, allowed: str):
     """Parse a unit string with pint and check its dimension; returns the pint unit."""
     _check_unit_text(unit, field, original, allowed)
@@ -343,7 +323,7 @@ def parse_quantity(text, kind: str, field: str, *, allowed: str | None = None,
 
 
 def _range(part: str, trailing: str, k: Kind, field: str, allow: str,
-           budget: int) -> np.ndarray:
+           budget: int, limit: int = MAX_VALUES) -> np.ndarray:
     segs = part.split(":")
     if len(segs) != 3:
         raise InvalidInput(field, part, allow,
@@ -366,7 +346,7 @@ def _range(part: str, trailing: str, k: Kind, field: str, allow: str,
         raise InvalidInput(field, part, allow, "the range start must not exceed its stop")
     span = (stop - start) / step
     if not math.isfinite(span) or span + 1 > budget:
-        raise InvalidInput(field, part, allow, f"the range gives more than {MAX_VALUES} values")
+        raise InvalidInput(field, part, allow, f"the range gives more than {limit} values")
     # The stop belongs to the grid when it lies on it to within rounding of the division.
     count = int(math.floor(span + 1e-9)) + 1
     if count > 1 and abs(span - (count - 1)) <= 1e-9 * span:
@@ -412,7 +392,7 @@ def parse_values(text, kind: str, field: str, *, allowed: str | None = None,
     for part in parts:
         budget = max_values - len(out)
         if ":" in part:
-            vals = _range(part, trailing, k, field, allow, budget)
+            vals = _range(part, trailing, k, field, allow, budget, max_values)
         else:
             mag, unit = split_magnitude(part, field, allow)
             vals = _to_si(np.array([mag]), unit or trailing, k, field, part, allow)

@@ -18,7 +18,7 @@ from ._validate import amplitude_scalar, positive_scalar
 from .body import with_parts
 from .compound import CompoundPendulum, rebuilt
 from .constants import SECONDS_PER_DAY
-from .errors import InvalidInput, SolverFailure
+from .errors import InvalidInput, SolverFailure, suggest
 from .kernels import swing as _k
 from .loads import swing_loads
 
@@ -245,8 +245,6 @@ def max_amplitude_for_limit(pend: CompoundPendulum, quantity: str, limit,
     points = dict(points or {})
     names = set(LIMIT_QUANTITIES) | {f"{p}.{q}" for p in points for q in _POINT_LIMITS}
     if quantity not in names:
-        from .quantity import suggest
-
         raise InvalidInput("limit quantity", quantity, ", ".join(sorted(names)),
                            f"not a limited quantity{suggest(quantity, names)}")
     lim = positive_scalar(limit, "limit", "SI unit of the quantity")
