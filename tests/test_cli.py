@@ -12,13 +12,10 @@ import sys
 
 import mpmath
 import pytest
-from typer.testing import CliRunner
 
 import swingcalc
-from swingcalc.cli.app import app
 
-ANSI = re.compile(r"\x1b\[[0-9;?]*[ -/]*[@-~]")
-runner = CliRunner()
+from cli_run import assert_bad, run, run_ok
 
 SEAT = os.path.join(os.path.dirname(swingcalc.__file__), "examples", "garden_swing_seat.toml")
 
@@ -34,28 +31,6 @@ amplitude = "2 deg"
 """
 
 
-def run(*args):
-    result = runner.invoke(app, [str(a) for a in args])
-    out, err = ANSI.sub("", result.stdout), ANSI.sub("", result.stderr)
-    assert "Traceback" not in out + err
-    return result.exit_code, out, err
-
-
-def run_ok(*args):
-    code, out, err = run(*args)
-    assert code == 0, err
-    return out, err
-
-
-def assert_bad(args, *words):
-    code, out, err = run(*args)
-    assert code == 2, (code, out, err)
-    lines = err.strip().splitlines()
-    assert len(lines) == 1, err
-    for w in words:
-        assert w in lines[0], (w, lines[0])
-    assert out == ""
-    return lines[0]
 
 
 def csv_rows(text):

@@ -5,38 +5,13 @@ import csv
 import io
 import json
 import math
-import re
 
 import pytest
-from typer.testing import CliRunner
-
-from swingcalc.cli.app import app
-
-ANSI = re.compile(r"\x1b\[[0-9;?]*[ -/]*[@-~]")
-runner = CliRunner()
 
 
-def run(*args):
-    result = runner.invoke(app, [str(a) for a in args])
-    out, err = ANSI.sub("", result.stdout), ANSI.sub("", result.stderr)
-    assert "Traceback" not in out + err
-    return result.exit_code, out, err
+from cli_run import assert_bad, run_ok
 
 
-def run_ok(*args):
-    code, out, err = run(*args)
-    assert code == 0, err
-    return out, err
-
-
-def assert_bad(args, *words):
-    code, out, err = run(*args)
-    assert code == 2, (code, out, err)
-    lines = err.strip().splitlines()
-    assert len(lines) == 1, err
-    for w in words:
-        assert w in lines[0], (w, lines[0])
-    assert out == ""
 
 
 BASE = ("simulate", "--length", "994 mm", "--q", "300", "--cycles", "6", "--amplitude", "5")
