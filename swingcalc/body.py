@@ -505,9 +505,10 @@ def scaled_for_temperature(body: Body, delta_t: float, parts=None) -> Body:
                    reference_suspension=body.reference_suspension)
 
 
-def with_parts(body: Body, parts) -> Body:
-    """``body`` built again from other parts given at its reference temperature (a moved
-    bob, a changed size), brought to the same temperature as ``body``."""
-    fresh = assemble(parts, body.reference_suspension or body.suspension,
+def with_parts(body: Body, parts, suspension: Suspension | None = None) -> Body:
+    """``body`` built again from other parts (and optionally another suspension) given at
+    its reference temperature (a moved bob, a changed size, a longer cable), brought to
+    the same temperature as ``body``."""
+    fresh = assemble(parts, suspension or body.reference_suspension or body.suspension,
                      body.arm_expansion_per_K)
     return scaled_for_temperature(fresh, body.delta_t_K) if body.delta_t_K else fresh

@@ -22,7 +22,7 @@ from .errors import InvalidInput, SolverFailure, suggest
 from .kernels import swing as _k
 from .loads import swing_loads
 
-__all__ = ["PositionSolution", "Sensitivity", "length_for_period", "position_for_period",
+__all__ = ["SUSPENSION", "PositionSolution", "Sensitivity", "length_for_period", "position_for_period",
            "drop_angle_for_energy", "drop_angle_for_speed", "max_amplitude_for_limit",
            "period_at", "sensitivities", "rating_adjustment", "LIMIT_QUANTITIES"]
 
@@ -80,10 +80,19 @@ class PositionSolution:
         return d
 
 
+#: The name that moves a flexible suspension's end: the line lengthens and every part
+#: hangs lower by the same distance (how a pendulum damper or a hung load is tuned).
+SUSPENSION = "suspension"
+
+
 def _names(body, parts) -> tuple:
     """The parts to move, as a tuple of names (one name or several), checked."""
     names = (parts,) if isinstance(parts, str) else tuple(parts)
     known = [p.name for p in body.reference]
+    if body.suspension.flexible:
+        known.append(SUSPENSION)
+    if SUSPENSION in names and len(names) > 1:
+        raise InvalidInput("part", parts, f"'{SUSPENSION}' alone (it moves every part)")
     for n in names:
         if n not in known:
             raise InvalidInput("part", n, "one of " + ", ".join(known), "no such part")
@@ -93,10 +102,21 @@ def _names(body, parts) -> tuple:
 
 
 def _moved(body, names: tuple, shift: float):
-    """The body with the named parts moved by ``shift`` [m] along the arm."""
+    """The body with the named parts moved by ``shift`` [m] along the arm (for
+    :data:`SUSPENSION`: the line lengthened by it and every part lowered with it)."""
+    if names == (SUSPENSION,):
+        susp = body.reference_suspension or body.suspension
+        parts = tuple(replace(p, position=p.position + shift) for p in body.reference)
+        return with_parts(body, parts, replace(susp, length=susp.length + shift))
     parts = tuple(replace(p, position=p.position + shift) if p.name in names else p
                   for p in body.reference)
     return with_parts(body, parts)
+
+
+def _position(body, name: str) -> float:
+    if name == SUSPENSION:
+        return (body.reference_suspension or body.suspension).length
+    return next(p for p in body.reference if p.name == name).position
 
 
 def position_for_period(pend: CompoundPendulum, part, target_period: float,
@@ -109,7 +129,9 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
         The design as it is (its body remembers its parts).
     part : str or sequence of str
         The part to move (a bob on its rod, a sliding weight), or several parts moved
-        together by the same distance (a bob and the rating nut it rests on).
+        together by the same distance (a bob and the rating nut it rests on), or
+        :data:`SUSPENSION` to lengthen a flexible suspension with the payload on it
+        (the position is then the suspension's length).
     target_period : float
         [s].
     amplitude : float
@@ -131,7 +153,7 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
     a = amplitude_scalar(amplitude)
     body = pend.body
     names = _names(body, part)
-    now = next(p for p in body.reference if p.name == names[0]).position
+    now = _position(body, names[0])
     reach = max(max(abs(p.centre_along_m) + 0.5 * p.extent_along_m for p in body.parts),
                 2.0 * abs(now))
     lo = -reach if lowest is None else float(lowest)
@@ -174,8 +196,8 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
     best = min(roots, key=lambda x: abs(x - now))
     b = _moved(body, names, best - now)
     period = rebuilt(pend, b).small_angle_period_s * ratio
-    return PositionSolution(parts=names, position_m=best,
-                            centre_m=b.part(names[0]).centre_along_m, period_s=period,
+    centre = b.suspension.length if names[0] == SUSPENSION else b.part(names[0]).centre_along_m
+    return PositionSolution(parts=names, position_m=best, centre_m=centre, period_s=period,
                             target_period_s=t, amplitude_rad=a, move_m=best - now,
                             other_positions_m=tuple(x for x in roots if x != best))
 
@@ -310,6 +332,9 @@ def sensitivities(pend: CompoundPendulum, amplitude: float) -> tuple:
         p = rebuilt(pend, b, gravity)
         return p.small_angle_period_s * (ratio if amp == a else _ratio(amp))
 
+    def period_at_body(b):
+        return rebuilt(pend, b).small_angle_period_s * ratio
+
     def diff(label, unit, x, f):
         h = _REL_STEP * (abs(x) if x else 1e-3)
         try:
@@ -324,6 +349,14 @@ def sensitivities(pend: CompoundPendulum, amplitude: float) -> tuple:
             diff(f"part.{p.name}.{label}", unit, x,
                  lambda v, i=i, p=p, change=change: period_with(
                      ref[:i] + (replace(p, **change(v)),) + ref[i + 1:]))
+    susp = body.reference_suspension or body.suspension
+    if susp.flexible:
+        diff("suspension.length", "m", susp.length,
+             lambda x: period_at_body(_moved(body, (SUSPENSION,), x - susp.length)))
+        if susp.mass_per_length > 0:
+            diff("suspension.mass_per_length", "kg/m", susp.mass_per_length,
+                 lambda x: period_at_body(with_parts(body, body.reference,
+                                                     replace(susp, mass_per_length=x))))
     diff("environment.gravity", "m/s^2", g, lambda x: period_with(gravity=x))
     if a > 0.0:
         diff("swing.amplitude", "rad", a, lambda x: period_with(amp=x))

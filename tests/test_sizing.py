@@ -210,3 +210,24 @@ def test_tuning_at_another_temperature_gives_the_position_to_write_in_the_file()
     assert set(s_warm) == set(s_cold)
     assert s_warm["part.rod.diameter"].period_per_unit == pytest.approx(
         s_cold["part.rod.diameter"].period_per_unit, rel=1e-2)
+
+
+def test_tuning_a_damper_lengthens_its_cables_with_the_mass_on_them():
+    """A point mass on a 2 m chain of 1 kg/m: tune by the line's length (the mass hangs
+    at its end). Rebuilt by hand with the solved length L (point at L, line of L kg):
+    T0 = 2 pi sqrt(I/M) with I = m L^2 + (lambda L) L^2/3, M = g (m L + lambda L L/2)
+    (parallel axis; a thin rod about its end, Young & Freedman Table 9.2) equals the
+    target to 1e-12."""
+    from swingcalc.body import Suspension
+    from swingcalc.sizing import SUSPENSION
+
+    m, lam = 50.0, 1.0
+    pend = compound_pendulum(assemble([Part("mass", "point", position=2.0, mass=m)],
+                                      Suspension("chain", 2.0, lam)), G)
+    sol = position_for_period(pend, SUSPENSION, 3.0, 0.0)
+    L = sol.position_m
+    inertia = m * L * L + lam * L * L * L / 3
+    moment = G * (m * L + lam * L * L / 2)
+    assert 2 * math.pi * math.sqrt(inertia / moment) == pytest.approx(3.0, rel=1e-12)
+    by = {s.input: s for s in sensitivities(pend, 0.0)}
+    assert "suspension.length" in by and "suspension.mass_per_length" in by

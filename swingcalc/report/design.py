@@ -12,7 +12,7 @@ from .. import clock_rate_error, harmonic_ratio, small_angle_period_error
 from ..compound import thermal_rate
 from ..constants import SECONDS_PER_DAY, SECONDS_PER_HOUR
 from ..loads import DEFAULT_SAMPLES, impact, swing_loads
-from ..sizing import (drop_angle_for_energy, drop_angle_for_speed, length_for_period,
+from ..sizing import (SUSPENSION, drop_angle_for_energy, drop_angle_for_speed, length_for_period,
                       max_amplitude_for_limit, period_at, position_for_period,
                       rating_adjustment, sensitivities)
 from .builders import _ERROR_NOTE, _PCT, _TRANSPOSE_MAX, _deg, _deg_value
@@ -384,6 +384,8 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
         notes = ["A point bob on a light rod; air effects are not applied to a point bob."]
     else:
         name = part or (design.rating.parts if design.rating else None)
+        if name is None and design.suspension.flexible:
+            name = (SUSPENSION,)
         if name is None:
             from ..errors import MISSING, InvalidInput
 
@@ -391,13 +393,15 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
                                + ", ".join(p.name for p in design.parts),
                                "required for a design of parts without a [rating] part")
         sol = position_for_period(pend, name, target, amplitude)
-        at = next(p.at for p in pend.body.reference if p.name == sol.parts[0])
+        at = ("length" if sol.parts[0] == SUSPENSION else
+              next(p.at for p in pend.body.reference if p.name == sol.parts[0]))
         zero = position_for_period(pend, name, target, 0.0)
         summary = [Item("parts", "moved", ", ".join(sol.parts)),
-                   Item("position_m", f"new position of {sol.parts[0]} (its {at})",
+                   Item("position_m", "new suspension length" if at == "length" else
+                        f"new position of {sol.parts[0]} (its {at})",
                         sol.position_m, "mm", 1e3, ".10g"),
-                   Item("centre_m", f"{sol.parts[0]} centre", sol.centre_m, "mm", 1e3,
-                        ".10g"),
+                   Item("centre_m", f"{sol.parts[0]} centre" if at != "length" else
+                        "suspension length at temperature", sol.centre_m, "mm", 1e3, ".10g"),
                    Item("move_m", "move (positive: away from the pivot)", sol.move_m, "mm",
                         1e3, ".6g"),
                    Item("period_s", "period there, recomputed", sol.period_s, "s", fmt=".13g"),
