@@ -113,3 +113,19 @@ def test_design_file_runs_with_its_context_amplitude_and_target():
     assert any("EN 1176" in c for c in d["cautions"])
     assert d["summary"]["initial_amplitude_rad"] == pytest.approx(math.radians(30), rel=1e-12)
     assert d["inputs"]["pin_radius_m"] == pytest.approx(0.006, rel=1e-15)
+
+
+def test_friction_options_change_the_design_pivot_field_by_field():
+    """The gate arm has a 25 mm pin (mu 0.12, static 0.18): --friction 0.3 keeps its pin
+    radius and raises the static coefficient to at least the kinetic one; a friction
+    torque replaces the pin's friction (plumbing)."""
+    from swingcalc import examples
+
+    gate = examples.path("gate_arm.toml")
+    d = json.loads(run_ok("simulate", gate, "--friction", "0.3", "--cycles", "2",
+                          "--format", "json")[0])["inputs"]
+    assert d["pin_radius_m"] == pytest.approx(0.0125, rel=1e-15)
+    assert d["friction_kinetic"] == 0.3 and d["friction_static"] == 0.3
+    d = json.loads(run_ok("simulate", gate, "--friction-torque", "0.1 N m", "--cycles", "2",
+                          "--format", "json")[0])["inputs"]
+    assert d["friction_torque_N_m"] == 0.1 and "pin_radius_m" not in d

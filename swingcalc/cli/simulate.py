@@ -115,13 +115,17 @@ def _model(length, mass, inertia, com_distance, gravity, q, damping_ratio, visco
     if design is not None:
         if linear:
             kw["linear"] = True
-        if any(k in kw for k in ("pin_radius", "friction", "static_friction",
-                                 "friction_torque")):
-            # friction options replace the design's pivot as a whole
-            model = SwingModel.from_pendulum(design.pendulum, None, name=design.name, **kw)
-        else:
-            model = SwingModel.from_pendulum(design.pendulum, design.pivot, name=design.name,
-                                             **kw)
+        # friction options change the design's pivot field by field; a friction torque
+        # and a pin's coefficients exclude each other
+        if "friction_torque" in kw:
+            kw.update(pin_radius=0.0, friction=0.0, static_friction=None)
+        elif any(k in kw for k in ("pin_radius", "friction", "static_friction")):
+            kw.update(friction_torque=0.0, static_friction_torque=None)
+            if "friction" in kw and "static_friction" not in kw:
+                kw["static_friction"] = max(kw["friction"],
+                                            design.pivot.static_friction_coefficient)
+        model = SwingModel.from_pendulum(design.pendulum, design.pivot, name=design.name,
+                                         **kw)
     elif inertia is not None or com_distance is not None:
         if length is not None:
             raise InvalidInput("--length", length, "either --length (simple pendulum) or "

@@ -10,10 +10,10 @@ from ..designfile import CONTEXTS
 __all__ = ["cautions_for"]
 
 _IDEALISED = (
-    "Idealised model: rigid parts on a rigid arm or an inextensible suspension, a "
-    "frictionless pivot and only the air effects shown, no flexing, fatigue or wear, and "
-    "no dynamic amplification from impacts, jerks or snatch loads; real loads can be "
-    "higher.")
+    "Idealised model: rigid parts on a rigid arm or an inextensible suspension, only the "
+    "friction and air effects stated (a frictionless pivot unless shown), no flexing, "
+    "fatigue or wear, and no dynamic amplification from impacts, jerks or snatch loads; "
+    "real loads can be higher.")
 _NO_APPROVAL = (
     "These results are no design approval: a licensed engineer must check any part that "
     "carries people or a heavy load, against the governing standards and local regulations.")
