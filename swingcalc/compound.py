@@ -299,8 +299,11 @@ def _air_model(p, rho, mu, angular_speed) -> _AirModel:
     """How one part meets the air when it moves sideways (along u): its added volume,
     drag coefficient and reference area, from :mod:`swingcalc.fluids`.
 
-    Parts moving edgewise (a lens bob seen face-on, a plate in the swing plane) have only
-    skin friction, on one face's area, at the Reynolds number of the part's peak speed."""
+    Parts moving edgewise (a plate in the swing plane, a flat bar) have skin friction on
+    their faces, at the Reynolds number of the part's peak speed, plus the form drag of
+    their blunt edge; a lens bob's sharp rim has skin friction only (a lower bound). A
+    cylinder moving across its axis carries the added mass of the spheroid of the same
+    proportions (the 2-D value when slender, little for a squat drum)."""
     from . import fluids as f
 
     sz, o = p.size_m, p.orientation
@@ -310,20 +313,34 @@ def _air_model(p, rho, mu, angular_speed) -> _AirModel:
     flat = "disc" if p.shape == "disc" else "plate"
 
     def friction(area, length):
-        return _AirModel(0.0, f.friction_drag_coefficient(_reynolds(length, speed, rho, mu)),
-                         area, False, (flat, "edgewise"))
+        # skin friction on one face's area plus the blunt edge's form drag, both on the
+        # face area: C_d = C_f + C_edge (edge area / face area)
+        cf = f.friction_drag_coefficient(_reynolds(length, speed, rho, mu))
+        edge = f.EDGE_FORM_DRAG_COEFFICIENT * p.frontal_area_m2 / area
+        return _AirModel(0.0, cf + edge, area, False, (flat, "edgewise"))
+
+    def across_axis(radius, length, area, spread):
+        # a finite cylinder moving across its axis carries the spheroid's share of its
+        # volume (-> 1, the 2-D value, when slender; small for a squat drum): the
+        # spheroid of the same proportions stands in for the cylinder (our approximation)
+        # (the coefficient's table stops at aspect 1e6, where it is 1 to 1e-11)
+        ca = f.spheroid_added_mass_coefficient(min(max(length / (2.0 * radius), 1e-6), 1e6),
+                                               "across")
+        volume = math.pi * radius * radius * length
+        cd = f.drag_coefficient("cylinder", "across",
+                                aspect_ratio=max(length / (2.0 * radius), 1.0))
+        return _AirModel(ca * volume, cd, area, spread, ("cylinder", "across"))
 
     if p.shape in ("rod", "tube"):
         d = sz.get("diameter", sz.get("outer_diameter"))
-        length = sz["length"]
-        return _AirModel(f.added_mass("cylinder", "across", 1.0, radius=0.5 * d, length=length),
-                         f.drag_coefficient("cylinder", "across",
-                                            aspect_ratio=max(length / d, 1.0)), d, True,
-                         ("cylinder", "across"))
+        return across_axis(0.5 * d, sz["length"], d, True)
     if p.shape == "flat_bar":
+        # per length along the arm: both faces' friction on the width, the edge's form
+        # drag on the thickness
         re = _reynolds(sz["width"], speed, rho, mu)
-        return _AirModel(0.0, f.friction_drag_coefficient(re), sz["width"], True,
-                         ("plate", "edgewise"))
+        width = (f.friction_drag_coefficient(re) * sz["width"]
+                 + f.EDGE_FORM_DRAG_COEFFICIENT * sz["thickness"])
+        return _AirModel(0.0, 1.0, width, True, ("plate", "edgewise"))
     if p.shape == "plate":
         w, h = sz["width"], sz["height"]
         if o == "swing":
@@ -347,10 +364,7 @@ def _air_model(p, rho, mu, angular_speed) -> _AirModel:
                                                 aspect_ratio=min(max(length / (2 * r), 0.5),
                                                                  8.0)),
                              math.pi * r * r, False, ("cylinder", "along"))
-        return _AirModel(f.added_mass("cylinder", "across", 1.0, radius=r, length=length),
-                         f.drag_coefficient("cylinder", "across",
-                                            aspect_ratio=max(length / (2 * r), 1.0)),
-                         2.0 * r * length, False, ("cylinder", "across"))
+        return across_axis(r, length, 2.0 * r * length, False)
     if p.shape == "sphere":
         r = 0.5 * sz["diameter"]
         return _AirModel(f.added_mass("sphere", None, 1.0, radius=r),

@@ -37,6 +37,7 @@ from .errors import InvalidInput, suggest
 
 __all__ = [
     "ADDED_MASS",
+    "EDGE_FORM_DRAG_COEFFICIENT",
     "AXIAL_DIRECTIONS",
     "DRAG",
     "FLAT_DIRECTIONS",
@@ -150,6 +151,12 @@ _ADDED = (
 )
 
 _SUBCRIT = 2e5   # below the sphere's and cylinder's drag crisis (about 3e5)
+
+#: Form drag of a flat part's blunt edge when it moves edgewise, on the edge's frontal
+#: area (thickness x extent): our estimate from the rectangular sections of White, Fluid
+#: Mechanics, Table 7.2/7.3 (C_d about 0.9-2.1 by proportions) [mem]; added to the
+#: faces' skin friction. A sharp rim (a lens bob's) has no blunt edge.
+EDGE_FORM_DRAG_COEFFICIENT = 1.0
 _DRAG = (
     DragEntry("sphere", "any", 0.47, "frontal", "diameter", 1e3, _SUBCRIT, "C_d = 0.47",
               f"{_WHITE} [mem]; {_HOERNER} [mem]",

@@ -256,3 +256,27 @@ def test_bad_parts_name_the_part_and_the_field(part, words):
     with pytest.raises(InvalidInput) as err:
         assemble([part])
     assert words in str(err.value)
+
+
+def test_added_mass_of_a_slender_rod_is_the_two_dimensional_value():
+    """A rod of L/D = 1000 moving across its axis carries the 2-D added mass rho pi r^2 per
+    length (Lamb, Hydrodynamics, section 68 [mem: section]); integrated along the arm it
+    adds rho pi r^2 L (s_c^2 + L^2/12) to the inertia. The spheroid coefficient used for
+    finite cylinders is 1 - O((D/L)^2 ln(L/D)) there: 1e-4 covers it."""
+    rho, L, d = 1.2, 1.0, 1e-3
+    p = compound_pendulum(assemble([rod(L, d)]), G, rho)
+    expect = rho * math.pi * (d / 2) ** 2 * L * (0.25 + L * L / 12)
+    assert p.air.added_inertia_kg_m2 == pytest.approx(expect, rel=1e-4)
+
+
+def test_a_squat_drum_carries_far_less_air_than_the_two_dimensional_value():
+    """A drum 1.2 m across and 0.23 m tall moving across its axis: an oblate body, whose
+    ideal-flow added mass tends to 0 as it flattens (Lamb, sections 114-115 [mem]); the
+    model's coefficient is under 0.2 of the displaced volume, not the 2-D 1."""
+    rho = 1.2
+    drum = Part("mass", "cylinder", position=2.7, size={"diameter": 1.2, "length": 0.23},
+                density=7850.0)
+    p = compound_pendulum(assemble([drum]), G, rho)
+    volume = math.pi * 0.6 ** 2 * 0.23
+    ca = p.air.added_inertia_kg_m2 / (rho * volume * 2.7 ** 2)
+    assert 0.05 < ca < 0.2
