@@ -461,6 +461,7 @@ class SimulationSummary:
     q_last: float | None
     q_first_amplitude_rad: float | None
     q_last_amplitude_rad: float | None
+    loss_q_last: float | None       # 2 pi E / energy lost in the last cycle (holds under a drive)
     decay_fraction: float
     decay_time_s: float | None
     decay_cycles: float | None
@@ -1218,6 +1219,8 @@ def _summary(run: _Run, hist, cycles: CycleTable, target, frac, settle, final_t)
         q_first, q_last = float(q[i]), float(q[j])
         dec_first, dec_last = float(dec[i]), float(dec[j])
         qa_first, qa_last = _opt(amp[i]), _opt(amp[j])
+    lq = col["loss_q"][np.isfinite(col["loss_q"])] if n else np.array([])
+    loss_q_last = float(lq[-1]) if lq.size else None
     decay_t = decay_n = None
     if a0 and turns_a.size:
         goal = frac * a0
@@ -1274,7 +1277,8 @@ def _summary(run: _Run, hist, cycles: CycleTable, target, frac, settle, final_t)
         first_rate_s_per_day=_opt(col["rate_s_per_day"][0]) if n else None,
         last_rate_s_per_day=_opt(col["rate_s_per_day"][-1]) if n else None,
         log_decrement_first=dec_first, log_decrement_last=dec_last,
-        q_first=q_first, q_last=q_last, q_first_amplitude_rad=qa_first,
+        q_first=q_first, q_last=q_last, loss_q_last=loss_q_last,
+        q_first_amplitude_rad=qa_first,
         q_last_amplitude_rad=qa_last, decay_fraction=frac, decay_time_s=decay_t,
         decay_cycles=decay_n, steady_amplitude_rad=steady, settled=settled,
         settle_time_s=settle_t, at_rest=rest is not None,

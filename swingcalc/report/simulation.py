@@ -145,6 +145,8 @@ def simulation_report(result, context: str = "general") -> Report:
                Item("q_first_amplitude_rad", "  at amplitude", s.q_first_amplitude_rad, **ang),
                Item("q_last", "Q (last cycles)", s.q_last, fmt=".6g"),
                Item("q_last_amplitude_rad", "  at amplitude", s.q_last_amplitude_rad, **ang),
+               Item("loss_q_last", "loss Q, last cycle (2 pi E / energy lost)", s.loss_q_last,
+                    fmt=".6g"),
                Item("log_decrement_first", "log decrement (first)", s.log_decrement_first,
                     fmt=".6g"),
                Item("log_decrement_last", "log decrement (last)", s.log_decrement_last,
