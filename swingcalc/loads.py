@@ -21,7 +21,8 @@ from ._validate import amplitude_scalar, positive_scalar, real_scalar
 from .compound import CompoundPendulum
 from .errors import InvalidInput
 
-__all__ = ["Peak", "PointMotion", "SwingLoads", "ImpactResult", "swing_loads", "point_motion",
+__all__ = ["Peak", "PointMotion", "SwingLoads", "ImpactResult", "swing_loads", "peak",
+           "point_motion",
            "impact", "over_top_speed", "DEFAULT_SAMPLES"]
 
 #: Angles in a loads table over the full swing -A..A (odd, so the bottom is a sample).
@@ -273,13 +274,7 @@ def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,
     if flexible and a > 0.5 * math.pi:
         _, d_p = _payload(pend)
         slack = math.acos(2.0 * d_p * k * math.cos(a) / (2.0 * d_p * k + pend.gravity_m_s2))
-    # Peaks only where the model holds: a slack suspension's payload falls freely.
-    reach = a if slack is None else slack
-    fine = np.linspace(-reach, reach, _REFINE_SAMPLES)
-    fine_series = _series(pend, a, fine, points)
-    peaks = tuple(_peak(pend, a, points, key, fine, values)
-                  for key, values in fine_series.items()
-                  if key not in ("potential_energy_J", "kinetic_energy_J"))
+    peaks = _peaks(pend, a, points, slack)
     if slack is not None:
         warnings.append(
             f"the suspension goes slack at {math.degrees(slack):.2f} deg, before the end "
@@ -315,6 +310,34 @@ def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,
         separatrix_margin=p, over_top_speed_rad_s=over_top_speed(pend),
         slack_angle_rad=slack, compression_angle_rad=compression,
         weight_N=pend.mass_kg * pend.gravity_m_s2, warnings=tuple(warnings))
+
+
+def _peaks(pend, a, points, slack, only: str | None = None) -> tuple:
+    """The peaks over the swing (only where the model holds: a slack suspension's payload
+    falls freely), of every quantity or of ``only``."""
+    reach = a if slack is None else slack
+    fine = np.linspace(-reach, reach, _REFINE_SAMPLES)
+    fine_series = _series(pend, a, fine, points)
+    return tuple(_peak(pend, a, points, key, fine, values)
+                 for key, values in fine_series.items()
+                 if key not in ("potential_energy_J", "kinetic_energy_J")
+                 and (only is None or key == only))
+
+
+def peak(pend: CompoundPendulum, amplitude: float, quantity: str, points=None) -> Peak:
+    """The peak of one quantity of :func:`swing_loads` (a key of its ``peaks``), computed
+    alone: what a search over amplitudes needs."""
+    a = amplitude_scalar(amplitude)
+    points = dict(points or {})
+    slack = None
+    if pend.body.suspension.flexible and a > 0.5 * math.pi:
+        k = pend.restoring_moment_N_m / pend.inertia_kg_m2
+        _, d_p = _payload(pend)
+        slack = math.acos(2.0 * d_p * k * math.cos(a) / (2.0 * d_p * k + pend.gravity_m_s2))
+    found = _peaks(pend, a, points, slack, only=quantity)
+    if not found:
+        raise KeyError(quantity)
+    return found[0]
 
 
 def _series(pend, a, theta, points) -> dict:

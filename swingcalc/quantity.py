@@ -118,6 +118,31 @@ KINDS = {
 }
 
 _DEGREE_SPELLINGS = ("deg", "degree", "degrees", "°")
+_CELSIUS = ("degC", "°C", "celsius")
+_FAHRENHEIT = ("degF", "°F", "fahrenheit")
+# The commonest units of a design file, exact by definition (SI prefixes; the inch, foot
+# and pound by the 1959 international yard and pound agreement, NIST SP 811 B.8), as
+# (multiplier, divisor): converted without pint, whose registry costs most of a second.
+_EXACT = {
+    "length": {"mm": (1.0, 1e3), "cm": (1.0, 1e2), "km": (1e3, 1.0), "um": (1.0, 1e6),
+               "in": (0.0254, 1.0), "ft": (0.3048, 1.0)},
+    "mass": {"g": (1.0, 1e3), "t": (1e3, 1.0), "lb": (0.45359237, 1.0)},
+    "density": {"g/cm^3": (1e3, 1.0), "kg/L": (1e3, 1.0)},
+    "volume": {"L": (1.0, 1e3), "cm^3": (1.0, 1e6), "mm^3": (1.0, 1e9)},
+    "time": {"ms": (1.0, 1e3), "min": (60.0, 1.0), "h": (3600.0, 1.0),
+             "day": (86400.0, 1.0)},
+    "pressure": {"hPa": (1e2, 1.0), "kPa": (1e3, 1.0), "bar": (1e5, 1.0)},
+    "force": {"kN": (1e3, 1.0), "MN": (1e6, 1.0)},
+    "energy": {"kJ": (1e3, 1.0)},
+    "inertia": {"kg m^2": (1.0, 1.0)},
+    "torque": {"N m": (1.0, 1.0), "N mm": (1.0, 1e3)},
+    "linear_density": {"g/m": (1.0, 1e3)},
+    "viscous": {"N m s": (1.0, 1.0)},
+    "angular_impulse": {"N m s": (1.0, 1.0)},
+    "drag_torque": {"N m s^2": (1.0, 1.0)},
+    "fraction": {"ppm": (1.0, 1e6)},
+    "expansion": {"ppm/K": (1.0, 1e6), "1/K": (1.0, 1.0)},
+}
 _DIFFERENCE_SCALES = {"degC": 1.0, "°C": 1.0, "delta_degC": 1.0, "degF": 5.0 / 9.0,
                       "°F": 5.0 / 9.0, "delta_degF": 5.0 / 9.0}
 _REGISTRY = None
@@ -259,6 +284,15 @@ def _to_si(mags: np.ndarray, unit: str, k: Kind, field: str, original: str,
         return mags
     if k.name == "fraction" and unit in ("%", "percent"):
         return mags / 100.0
+    if k.name == "temperature" and unit in _CELSIUS + _FAHRENHEIT:
+        # the two offset scales, by definition (SI Brochure; NIST SP 811 B.8)
+        if unit in _CELSIUS:
+            return mags + 273.15
+        return (mags - 32.0) * (5.0 / 9.0) + 273.15
+    exact = _EXACT.get(k.name, {}).get(" ".join(unit.split()))
+    if exact is not None:               # exact by definition: no need to load pint
+        mul, div = exact
+        return mags * mul / div
     parsed = _parse_unit(unit, k, field, original, allowed)
     ureg = _registry()
     import pint

@@ -20,7 +20,7 @@ from .compound import CompoundPendulum, rebuilt
 from .constants import SECONDS_PER_DAY
 from .errors import InvalidInput, SolverFailure, suggest
 from .kernels import swing as _k
-from .loads import swing_loads
+from .loads import peak
 
 __all__ = ["SUSPENSION", "PositionSolution", "Sensitivity", "length_for_period", "position_for_period",
            "drop_angle_for_energy", "drop_angle_for_speed", "max_amplitude_for_limit",
@@ -237,8 +237,7 @@ _POINT_LIMITS = ("speed_m_s", "felt_g", "felt_normal_g", "felt_tangential_g")
 
 
 def _peak_value(pend, amplitude, quantity, points) -> float:
-    loads = swing_loads(pend, amplitude, points=points, samples=3)
-    return abs(loads.peak(quantity).value)
+    return abs(peak(pend, amplitude, quantity, points).value)
 
 
 def max_amplitude_for_limit(pend: CompoundPendulum, quantity: str, limit,

@@ -44,9 +44,14 @@ def test_cli_with_bare_numbers_does_not_load_pint_or_integrators():
         assert not [m for m in HEAVY_FOR_CLI if m in loaded], fmt
 
 
-def test_cli_loads_pint_only_for_a_unit_string():
+def test_cli_loads_pint_only_for_a_unit_it_cannot_convert_by_definition():
+    """850 mm and 20 degC are converted by definition (SI prefixes, the Celsius offset);
+    a furlong needs pint's registry."""
     loaded = _loaded_after(_run_cli(["periods", "--length", "850 mm", "--format", "csv"]))
-    assert "pint" in loaded and "mpmath" not in loaded and "scipy.integrate" not in loaded
+    assert "pint" not in loaded and "mpmath" not in loaded and "scipy.integrate" not in loaded
+    loaded = _loaded_after(_run_cli(["periods", "--length", "0.005 furlong", "--format",
+                                     "csv"]))
+    assert "pint" in loaded
 
 
 def test_quantity_module_alone_does_not_load_pint():

@@ -8,6 +8,7 @@ decimal definition; rel=4e-16 (about 2 ulp) allows that and nothing more.
 
 import math
 
+import numpy as np
 import pytest
 
 from swingcalc.errors import InvalidInput
@@ -168,3 +169,25 @@ def test_suggest_prefers_a_case_only_match_then_close_ones():
     assert suggest("flexibel", ("rigid", "flexible")) == "; did you mean 'flexible'?"
     assert suggest("zzz", ("rigid", "flexible")) == ""
     assert suggest("metres", (), fallback=("metre", "meter")) .startswith("; did you mean")
+
+
+def test_units_converted_without_pint_agree_with_pint():
+    """The units swingcalc.quantity converts by definition (to spare loading pint) against
+    pint's own conversion (the general-purpose reference): 2 ulp allows the two routes'
+    rounding (a division by 1000 against pint's multiplication by 0.001)."""
+    import pint
+
+    from swingcalc import quantity as Q
+
+    ureg = pint.UnitRegistry()
+    for kind, table in Q._EXACT.items():
+        si = Q.KINDS[kind].si
+        for unit in table:
+            for mag in (1.0, 850.0, 0.3):
+                got = Q._to_si(np.array([mag]), unit, Q.KINDS[kind], "x", unit, "")[0]
+                want = ureg.Quantity(mag, ureg.parse_units(unit)).to(si).magnitude
+                assert got == pytest.approx(want, rel=4.5e-16), (kind, unit, mag)
+    for unit in Q._CELSIUS[:1] + Q._FAHRENHEIT[:1]:
+        got = Q._to_si(np.array([68.0]), unit, Q.KINDS["temperature"], "x", unit, "")[0]
+        want = ureg.Quantity(68.0, unit).to("K").magnitude
+        assert got == pytest.approx(want, rel=4.5e-16), unit
