@@ -2,8 +2,9 @@
 
 A bare number is SI, except an angle, which is in degrees (the trade's habit). A number
 with a unit (``"850 mm"``, ``"2.5 ft"``, ``"30 deg"``, ``"0.5 %"``) is converted with pint,
-which is imported only when a string carries a unit other than the kind's own SI unit
-(or degrees for an angle), so bare-number runs stay light.
+which is imported only when a string carries a unit it cannot convert by definition (the
+kind's SI unit, degrees, percent, the SI-prefixed and inch-pound units of ``_EXACT``,
+degC and degF are converted here), so most runs never pay for pint's registry.
 
 Parsing is deliberately narrow: the magnitude is split off with a regular expression and
 read with :func:`float`; the unit part is limited in length and characters, may hold
