@@ -498,9 +498,11 @@ class SimulationResult:
     summary: SimulationSummary
     energy: EnergyBudget
     settings: dict = field(default_factory=dict)
+    warnings: tuple = ()
 
     def to_dict(self, history: bool = True) -> dict:
         d = {"success": self.success, "status": self.status, "message": self.message,
+             "warnings": list(self.warnings),
              "model": self.model.to_dict(),
              "drives": [dict(kind=dr.label, **dr.__dict__) for dr in self.drives],
              "settings": dict(self.settings), "summary": self.summary.to_dict(),
@@ -1110,8 +1112,18 @@ def _result(run: _Run, drives, target, frac, settle, settings) -> SimulationResu
                          f"(t = {summary.rest_time_s:.9g} s): static friction holds it"
                          if summary.rest_angle_rad is not None else "at rest"),
     }.get(run.status, run.status)
+    warnings = []
+    if not run.model.linear and run.e0 > 0.0:
+        # Near the separatrix the period grows like ln(1 / (1 - E/E_sep)): the integrator's
+        # energy error (~rtol) moves it by about rtol / (1 - E/E_sep) relative.
+        margin = 1.0 - run.e0 / (2.0 * run.model.restoring_moment)
+        if 0.0 < margin and run.rtol / margin > 1e-9:
+            warnings.append(
+                f"the start is within {margin:.2g} of the separatrix energy: the integrated "
+                f"periods can be off by about {min(run.rtol / margin, 1.0):.1g} relative; "
+                "the exact conservative period is swingcalc.period (the 'periods' command)")
     return SimulationResult(ok, run.status, message, run.model, tuple(drives), hist, cycles,
-                            summary, budget, settings)
+                            summary, budget, settings, tuple(warnings))
 
 
 def _cycle_table(run: _Run, names, impulse_names, target) -> CycleTable:

@@ -82,7 +82,6 @@ def test_body_from_inertia_and_harmonic_torque():
 
 
 @pytest.mark.parametrize("args, words", [
-    (("simulate", "--length", "1"), ("--duration",)),
     (("simulate", "--length", "-1", "--cycles", "3"), ("--length",)),
     (("simulate", "--cycles", "2.5"), ("--cycles",)),
     (("simulate", "--cycles", "3", "--q", "0.1"), ("--q",)),
@@ -129,3 +128,36 @@ def test_friction_options_change_the_design_pivot_field_by_field():
     d = json.loads(run_ok("simulate", gate, "--friction-torque", "0.1 N m", "--cycles", "2",
                           "--format", "json")[0])["inputs"]
     assert d["friction_torque_N_m"] == 0.1 and "pin_radius_m" not in d
+
+
+def test_simulate_runs_with_no_arguments_on_the_bundled_design():
+    """PRODUCT.md: a default design is bundled, so a command runs with no arguments
+    (100 cycles when no length of run is given)."""
+    d = json.loads(run_ok("simulate", "--format", "json")[0])
+    assert d["summary"]["cycles"] == 100
+    assert d["cautions"]
+
+
+def test_decay_fraction_gives_the_textbook_decay_time():
+    """A linear viscous oscillator decays as exp(-zeta w0 t) (any vibrations text): to 10 %
+    in t = ln(10) / (zeta w0) = 2 Q ln(10) / w0. With the pendulum at 5 deg the nonlinear
+    period shift (A^2/16 ~ 5e-4) and the interpolation between turning points are what
+    is left: 2e-3 relative."""
+    d = json.loads(run_ok("simulate", "--length", "1", "--q", "30", "--linear",
+                          "--amplitude", "5", "--cycles", "60", "--decay-fraction", "10 %",
+                          "--format", "json")[0])
+    w0 = math.sqrt(9.80665)
+    assert d["summary"]["decay_time_s"] == pytest.approx(60 * math.log(10) / w0, rel=2e-3)
+
+
+@pytest.mark.parametrize("args, words", [
+    (("simulate", "--cycles", "2", "--push-angle", "10"), ("--push-angle", "no push")),
+    (("simulate", "--cycles", "2", "--push-per", "beat"), ("--push-per", "no push")),
+    (("simulate", "--cycles", "2", "--push-energy", "1 mJ", "--push-direction", "up"),
+     ("--push-direction", "clockwise")),
+    (("simulate", "--cycles", "2", "--decay-fraction", "150 %"), ("--decay-fraction",)),
+    (("simulate", "--cycles", "2", "--averaged", "--decay-fraction", "10 %"),
+     ("--decay-fraction", "averaged")),
+])
+def test_push_and_decay_options_are_checked(args, words):
+    assert_bad(args, *words)

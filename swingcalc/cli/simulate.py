@@ -24,6 +24,9 @@ from . import options as opt
 
 __all__ = ["register"]
 
+#: Cycles run when neither --duration nor --cycles is given.
+_DEFAULT_CYCLES = 100
+
 _Text = str | None
 
 
@@ -168,7 +171,7 @@ def _named(option, fn):
 
 
 def _drives(torque, torque_frequency, pivot, pivot_amplitude, pivot_frequency,
-            push_energy, push_impulse, push_angle, push_per):
+            push_energy, push_impulse, push_angle, push_per, push_direction=None):
     from ..simulate import HarmonicTorque, ImpulseDrive, PivotMotion
 
     out = []
@@ -189,6 +192,12 @@ def _drives(torque, torque_frequency, pivot, pivot_amplitude, pivot_frequency,
                                "missing")
         out.append(PivotMotion(axis, opt.length(pivot_amplitude, "--pivot-amplitude"),
                                _si(pivot_frequency, "frequency", "--pivot-frequency")))
+    if push_energy is None and push_impulse is None:
+        for name, value in (("--push-angle", push_angle), ("--push-per", push_per),
+                            ("--push-direction", push_direction)):
+            if value is not None:
+                raise InvalidInput(name, value, "with --push-energy or --push-impulse",
+                                   "there is no push to place")
     if push_energy is not None or push_impulse is not None:
         if push_energy is not None and push_impulse is not None:
             raise InvalidInput("--push-impulse", push_impulse,
@@ -197,9 +206,18 @@ def _drives(torque, torque_frequency, pivot, pivot_amplitude, pivot_frequency,
         if per not in ("beat", "swing"):
             raise InvalidInput("--push-per", push_per, "beat or swing")
         angle = _angle(push_angle, "--push-angle") if push_angle is not None else 0.0
+        words = {"counter-clockwise": 1, "ccw": 1, "+": 1, "clockwise": -1, "cw": -1, "-": -1}
+        direction = 1
+        if push_direction is not None:
+            word = push_direction.strip().lower()
+            if word not in words:
+                raise InvalidInput("--push-direction", push_direction,
+                                   "counter-clockwise (ccw, +) or clockwise (cw, -)")
+            direction = words[word]
         out.append(ImpulseDrive(
-            angle, energy=None if push_energy is None else _si(push_energy, "energy",
-                                                                 "--push-energy"),
+            angle, direction=direction,
+            energy=None if push_energy is None else _si(push_energy, "energy",
+                                                        "--push-energy"),
             angular_impulse=None if push_impulse is None else _si(push_impulse, "impulse",
                                                                   "--push-impulse"),
             per=per))
@@ -262,7 +280,8 @@ def register(app) -> None:
                                              "Start angular speed (bare: rad/s).")] = None,
         duration: Annotated[_Text, _opt("--duration", "TIME",
                                         "Simulated time, e.g. '60 s', '7 day'.")] = None,
-        cycles: Annotated[_Text, _opt("--cycles", "N", "Stop after N complete cycles.")] = None,
+        cycles: Annotated[_Text, _opt("--cycles", "N", "Stop after N complete cycles "
+                                      "(default 100 when no --duration).")] = None,
         q: Annotated[_Text, _opt("--q", "Q", "Viscous damping given as Q at small "
                                  "amplitude.")] = None,
         damping_ratio: Annotated[_Text, _opt("--damping-ratio", "ZETA",
@@ -303,6 +322,13 @@ def register(app) -> None:
         push_per: Annotated[_Text, _opt("--push-per", "WHEN",
                                         "beat (each half swing) or swing (once per "
                                         "period).")] = None,
+        push_direction: Annotated[_Text, _opt("--push-direction", "DIR",
+                                              "Push passing the angle counter-clockwise "
+                                              "(default) or clockwise.")] = None,
+        decay_fraction: Annotated[_Text, _opt("--decay-fraction", "FRACTION",
+                                              "Report the time and cycles to decay to this "
+                                              "fraction of the start amplitude (default "
+                                              "50 %).")] = None,
         target_period: Annotated[_Text, _opt("--target-period", "TIME",
                                              "Period for the rate error (default: the "
                                              "small-angle period).")] = None,
@@ -362,7 +388,7 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
          static_friction=None, friction_torque=None, linear=False, torque=None,
          torque_frequency=None, pivot_motion=None, pivot_amplitude=None, pivot_frequency=None,
          push_energy=None, push_impulse=None, push_angle=None, push_per=None,
-         target_period=None, rtol=None, averaged=False, context=None, cycles_file=None,
+         push_direction=None, decay_fraction=None, target_period=None, rtol=None, averaged=False, context=None, cycles_file=None,
          history_file=None, fmt=None, output=None, force=False):
     from ..designfile import CONTEXTS
     from ..quantity import parse_quantity, split_magnitude, suggest
@@ -382,7 +408,7 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
                    drag, pin_radius, friction, static_friction, friction_torque, linear,
                    design=d)
     drives = _drives(torque, torque_frequency, pivot_motion, pivot_amplitude, pivot_frequency,
-                     push_energy, push_impulse, push_angle, push_per)
+                     push_energy, push_impulse, push_angle, push_per, push_direction)
     if amplitude is not None:
         theta0 = _angle(amplitude, "--amplitude")
     else:
@@ -400,13 +426,22 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
             raise InvalidInput("--cycles", cycles, "a whole number of cycles in [1, 1e9]")
         n = int(value)
     if T is None and n is None:
-        raise InvalidInput("--duration", MISSING, "--duration or --cycles", "give one")
+        n = _DEFAULT_CYCLES
     target = (opt.positive_time(target_period, "--target-period")
               if target_period is not None else None)
     tol = 1e-12
     if rtol is not None:
         tol = parse_quantity(rtol, "fraction", "--rtol", minimum=1e-14, maximum=1e-3,
                              allowed="a relative tolerance in [1e-14, 1e-3]")
+    extra = {}
+    if decay_fraction is not None:
+        extra["decay_fraction"] = parse_quantity(
+            decay_fraction, "fraction", "--decay-fraction", minimum=0.0, maximum=1.0,
+            include_min=False, include_max=False,
+            allowed="a fraction in (0, 1) of the start amplitude, e.g. '10 %' or 0.1")
+    if averaged and extra:
+        raise InvalidInput("--decay-fraction", decay_fraction, "the full integrator (no "
+                           "--averaged)", "the averaged model reports no decay time")
     if averaged:
         from ..averaged import averaged as run_averaged
         from ..report.simulation import averaged_cycles_report, averaged_report
@@ -442,7 +477,7 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
     bar = _progress_bar()
     try:
         res = run_simulate(model, theta0, omega0, duration=T, cycles=n, drives=drives,
-                           rtol=tol, target_period=target, progress=bar)
+                           rtol=tol, target_period=target, progress=bar, **extra)
     finally:
         bar.close()
     report = simulation_report(res, ctx)

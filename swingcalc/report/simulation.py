@@ -188,7 +188,7 @@ def simulation_report(result, context: str = "general") -> Report:
         title = ("Per cycle" if n <= 2 * SAMPLE_ROWS else
                  f"Per cycle (first and last {SAMPLE_ROWS} of {n})")
         tables.append(_table("cycles", title, cols, _sample_index(n)))
-    warnings = []
+    warnings = list(result.warnings)
     if not result.success:
         warnings.append(result.message)
     if s.over_the_top:
