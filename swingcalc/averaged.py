@@ -379,15 +379,20 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
         A = tables.amp_of(E)
         if stick_cap is not None and M * (A if lin else math.sin(A)) <= stick_cap:
             ok_assumptions = False
+            success = False
             message = (f"stopped after {k} beats at amplitude {A:.6g} rad: static friction "
-                       "can hold the body at its turning point (stick-slip); use simulate")
+                       "can hold the body at its turning point (stick-slip); the averaged "
+                       "model cannot follow it further: use simulate")
             break
         L1 = tables.loss(u)
         if L1 >= 0.5 * E:
             # the beat would lose most of its energy: the body stops within it (friction)
             ok_assumptions = False
-            message = (f"stopped after {k} beats at amplitude {A:.6g} rad: the body stops "
-                       "within the next beat (stick-slip or heavy damping); use simulate")
+            success = False
+            message = (f"stopped after {k} beats at amplitude {A:.6g} rad: the body would "
+                       "lose most of its energy in the next beat (stick-slip or heavy "
+                       "damping), so this amplitude is only roughly where it stops: use "
+                       "simulate for the stop")
             break
         if L1 * q_limit > math.pi * E and ok_assumptions:
             ok_assumptions = False

@@ -260,6 +260,8 @@ def averaged_report(result, context: str = "general") -> Report:
                  f"Per cycle (first and last {SAMPLE_ROWS} of {n})")
         tables.append(_table("cycles", title, cols, range(len(idx))))
     warnings = list(result.warnings)
+    if not result.success:
+        warnings.append(result.message)
     notes = [result.message,
              ("Cycle-averaged model: losses over the exact conservative orbit at each beat's "
               "amplitude, the push's energy per beat, the exact period at that amplitude. "
