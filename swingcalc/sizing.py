@@ -159,7 +159,8 @@ def position_for_period(pend: CompoundPendulum, part, target_period: float,
     lo = -reach if lowest is None else float(lowest)
     hi = reach if highest is None else float(highest)
     if not (math.isfinite(lo) and math.isfinite(hi) and lo < hi):
-        raise InvalidInput("position range", (lowest, highest), "a finite range low < high [m]")
+        raise InvalidInput("position range", (lowest, highest), "a finite range low < high [m]",
+                           "the search range is empty")
     ratio = _ratio(a)
 
     def excess(x):

@@ -231,3 +231,18 @@ def test_tuning_a_damper_lengthens_its_cables_with_the_mass_on_them():
     assert 2 * math.pi * math.sqrt(inertia / moment) == pytest.approx(3.0, rel=1e-12)
     by = {s.input: s for s in sensitivities(pend, 0.0)}
     assert "suspension.length" in by and "suspension.mass_per_length" in by
+
+
+def test_a_counterweight_above_the_pivot_is_tuned_there():
+    """Two point masses, 1 kg at 1 m and a 0.5 kg counterweight above the pivot at
+    -0.2 m: with the counterweight at c < 0, T0 = 2 pi sqrt(I/(g m d)), I = 1 + 0.5 c^2,
+    m d = 1 + 0.5 c (hand calculation). Solving for T0 = 2.5 s with the search above the
+    pivot and putting the counterweight there gives 2.5 s to 1e-12."""
+    parts = [Part("bob", "point", position=1.0, mass=1.0),
+             Part("cw", "point", position=-0.2, mass=0.5)]
+    pend = compound_pendulum(assemble(parts), G)
+    sol = position_for_period(pend, "cw", 2.5, 0.0, lowest=-0.9, highest=-0.01)
+    c = sol.position_m
+    assert c < 0
+    assert 2 * math.pi * math.sqrt((1 + 0.5 * c * c) / (G * (1 + 0.5 * c))) == pytest.approx(
+        2.5, rel=1e-12)

@@ -91,15 +91,29 @@ def register(app: typer.Typer) -> None:
                  "--period", metavar="TIME",
                  help="Target period, e.g. '2 s' (default: the design's target_period).")]
              = None,
-             amplitude: OneAmplitude = None, part: Part = None, gravity: opt.Gravity = None,
+             amplitude: OneAmplitude = None, part: Part = None,
+             search_from: Annotated[Optional[str], typer.Option(
+                 "--from", metavar="POSITION", help="Search the part's positions from here "
+                 "(e.g. '-400 mm', above the pivot; default: as far above as below).")]
+             = None,
+             search_to: Annotated[Optional[str], typer.Option(
+                 "--to", metavar="POSITION", help="... to here (default: twice the present "
+                 "position or the body's reach).")] = None,
+             gravity: opt.Gravity = None,
              fmt: opt.Format = None, output: opt.Output = None, force: opt.Force = False
              ) -> None:
         """Length (point bob) or part position (a bob on its rod) that gives the target
         period at the working amplitude, not at zero amplitude."""
+        from ..quantity import parse_quantity
         from ..report.design import tune_report
 
         target = opt.positive_time(period, "--period") if period is not None else None
         a = _one_amplitude(amplitude)
+        allowed = "a position along the arm, e.g. '850 mm' (negative above the pivot)"
+        lo = (parse_quantity(search_from, "length", "--from", allowed=allowed)
+              if search_from is not None else None)
+        hi = (parse_quantity(search_to, "length", "--to", allowed=allowed)
+              if search_to is not None else None)
 
         def build(d):
             t = target if target is not None else d.target_period_s
@@ -107,8 +121,10 @@ def register(app: typer.Typer) -> None:
                 raise InvalidInput("--period", MISSING, "a target period, e.g. '2 s'",
                                    "required when the design has no swing.target_period")
             names = None if part is None else tuple(n.strip() for n in part.split(","))
-            with _app()._options_named(part="--part", **{"target period": "--period"}):
-                return tune_report(d, t, d.amplitudes_rad[0] if a is None else a, names)
+            with _app()._options_named(part="--part", **{"target period": "--period",
+                                                         "position range": "--from"}):
+                return tune_report(d, t, d.amplitudes_rad[0] if a is None else a, names,
+                                   lowest=lo, highest=hi)
 
         _run(design, fmt, output, force, build, gravity=gravity)
 

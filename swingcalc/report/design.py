@@ -367,7 +367,8 @@ def _unit_of(key: str) -> str:
     return next((unit for suffix, unit in _UNITS if key.endswith(suffix)), "")
 
 
-def tune_report(design, target: float, amplitude: float, part: str | None) -> Report:
+def tune_report(design, target: float, amplitude: float, part: str | None,
+                lowest: float | None = None, highest: float | None = None) -> Report:
     """Length or part position for the target period at the working amplitude."""
     pend = design.pendulum
     inputs = _design_inputs(design) + [
@@ -392,10 +393,10 @@ def tune_report(design, target: float, amplitude: float, part: str | None) -> Re
             raise InvalidInput("--part", MISSING, "the name of the part to move: "
                                + ", ".join(p.name for p in design.parts),
                                "required for a design of parts without a [rating] part")
-        sol = position_for_period(pend, name, target, amplitude)
+        sol = position_for_period(pend, name, target, amplitude, lowest, highest)
         at = ("length" if sol.parts[0] == SUSPENSION else
               next(p.at for p in pend.body.reference if p.name == sol.parts[0]))
-        zero = position_for_period(pend, name, target, 0.0)
+        zero = position_for_period(pend, name, target, 0.0, lowest, highest)
         summary = [Item("parts", "moved", ", ".join(sol.parts)),
                    Item("position_m", "new suspension length" if at == "length" else
                         f"new position of {sol.parts[0]} (its {at})",
