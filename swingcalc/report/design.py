@@ -25,6 +25,11 @@ __all__ = ["design_report", "body_report", "loads_report", "tune_report", "drop_
 _DEG = 180.0 / math.pi
 
 
+def _celsius(kelvin: float) -> str:
+    """A temperature kept in K (SI, as JSON has it) shown in degC."""
+    return f"{kelvin - 273.15:.4g}"
+
+
 def _title(what: str, design) -> str:
     rev = f", rev. {design.revision}" if design.revision else ""
     return f"{what}: {design.name}{rev}"
@@ -42,8 +47,8 @@ def _design_inputs(design) -> list[Item]:
     items += [Item("context", "context", design.context),
               Item("gravity_m_s2", "gravity" if given.replace(" ", "") == f"{env.gravity_m_s2}"
                    else f"gravity ({given})", env.gravity_m_s2, "m/s^2", fmt=".8g"),
-              Item("temperature_degC", "temperature", env.temperature_K - 273.15, "degC",
-                   fmt=".4g"),
+              Item("temperature_K", "temperature", env.temperature_K, "degC",
+                   fmt=_celsius),
               Item("air_density_kg_m3", "air density" if env.air else "air (off: vacuum)",
                    env.air_density_kg_m3, "kg/m^3", fmt=".5g")]
     return items
