@@ -161,7 +161,7 @@ _FLEXIBLE_NOTE = ("Flexible suspension: while taut it swings with the payload as
 
 def _impact_items(pend, imp) -> list[Item]:
     r = impact(pend, imp.drop_angle_rad, imp.strike_radius_m, imp.rise_angle_rad)
-    items = [Item("drop_angle_deg", "drop angle", r.drop_angle_rad * _DEG, "deg", fmt=".6g"),
+    items = [Item("drop_angle_rad", "drop angle", r.drop_angle_rad, "deg", _DEG, ".6g"),
              Item("potential_energy_J", "energy at the strike (potential energy at drop)",
                   r.potential_energy_J, "J", fmt=".6g"),
              Item("striking_speed_m_s", "striking speed at the centre of strike",
@@ -173,7 +173,7 @@ def _impact_items(pend, imp) -> list[Item]:
              Item("percussion_offset_rel", "centre of strike beyond the centre of percussion",
                   r.percussion_offset_rel, "%", 100.0, ".3g")]
     if r.absorbed_J is not None:
-        items += [Item("rise_angle_deg", "rise angle", r.rise_angle_rad * _DEG, "deg",
+        items += [Item("rise_angle_rad", "rise angle", r.rise_angle_rad, "deg", _DEG,
                        fmt=".6g"),
                   Item("absorbed_J", "energy absorbed (no friction or windage deducted)",
                        r.absorbed_J, "J", fmt=".6g")]
@@ -200,7 +200,7 @@ def body_report(design) -> Report:
     summary = _body_items(pend) + [
         Item("com_along_m", "centre of mass along the arm", b.com_along_m, "m", fmt=".6g"),
         Item("com_across_m", "centre of mass across the arm", b.com_across_m, "m", fmt=".4g"),
-        Item("hang_tilt_deg", "arm tilt when hanging at rest", b.hang_tilt_rad * _DEG, "deg",
+        Item("hang_tilt_rad", "arm tilt when hanging at rest", b.hang_tilt_rad, "deg", _DEG,
              fmt=".4g"),
         Item("inertia_com_kg_m2", "inertia about the centre of mass", b.inertia_com_kg_m2,
              "kg m^2", fmt=".6g"),
@@ -334,7 +334,7 @@ def loads_report(design, amplitude: float | None = None,
                    Column("angle_rad", "at angle", "rad", in_text=False)),
                   tuple((p.quantity, p.value, _unit_of(p.quantity), p.angle_rad * _DEG,
                          p.angle_rad) for p in loads.peaks))
-    summary = [Item("amplitude_deg", "amplitude", _deg_value(a), "deg", fmt=amplitude_text),
+    summary = [Item("amplitude_rad", "amplitude", a, "deg", _DEG, fmt=amplitude_text),
                Item("period_s", "period", period_at(pend, a), "s", fmt=".8g"),
                Item("energy_J", "swing energy", loads.energy_J, "J", fmt=".6g"),
                Item("separatrix_energy_J", "energy to go over the top", loads.separatrix_energy_J,
@@ -345,10 +345,9 @@ def loads_report(design, amplitude: float | None = None,
                     loads.over_top_speed_rad_s, "rad/s", fmt=".5g"),
                Item("weight_N", "weight (static pivot load)", loads.weight_N, "N", fmt=".6g")]
     zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
-    summary.append(Item("slack_angle_deg" if flexible else "compression_angle_deg",
+    summary.append(Item("slack_angle_rad" if flexible else "compression_angle_rad",
                         "suspension goes slack at" if flexible else "arm in compression beyond",
-                        None if zero is None else zero * _DEG, "deg", fmt=".5g",
-                        missing="never"))
+                        zero, "deg", _DEG, fmt=".5g", missing="never"))
     if design.impact is not None:
         summary += _impact_items(pend, design.impact)
     notes = ["Angles from the hanging position; pivot load is the force the pivot carries "
@@ -378,7 +377,7 @@ def tune_report(design, target: float, amplitude: float, part: str | None,
     pend = design.pendulum
     inputs = _design_inputs(design) + [
         Item("target_period_s", "target period", target, "s", fmt=".10g"),
-        Item("amplitude_deg", "at amplitude", _deg_value(amplitude), "deg", fmt=amplitude_text)]
+        Item("amplitude_rad", "at amplitude", amplitude, "deg", _DEG, fmt=amplitude_text)]
     if design.shorthand and part is None:
         L = length_for_period(target, amplitude, pend.gravity_m_s2)
         summary = [Item("length_m", "length, pivot to bob centre", L, "mm", 1e3, ".10g"),
@@ -440,9 +439,8 @@ def drop_report(design, energy: float | None, speed: float | None,
         alpha = drop_angle_for_energy(pend, energy)
         target = Item("target_energy_J", "target energy", energy, "J", fmt=".6g")
     res = impact(pend, alpha, r if r is not None else pend.body.centre_of_percussion_m)
-    summary = [Item("drop_angle_deg", "drop angle from the hanging position", alpha * _DEG,
-                    "deg", fmt=".8g"),
-               Item("drop_angle_rad", "drop angle", alpha, "rad", fmt=".10g"),
+    summary = [Item("drop_angle_rad", "drop angle from the hanging position", alpha, "deg",
+                    _DEG, ".8g"),
                Item("potential_energy_J", "energy at the bottom", res.potential_energy_J, "J",
                     fmt=".8g"),
                Item("striking_speed_m_s", "speed at the strike radius", res.striking_speed_m_s,
@@ -467,15 +465,13 @@ def limit_report(design, quantity: str, limit: float) -> Report:
     notes = []
     flexible = pend.body.suspension.flexible
     if a >= math.pi or (flexible and a == 0.5 * math.pi):
-        summary += [Item("max_amplitude_deg", "largest amplitude", a * _DEG, "deg", fmt=".8g"),
-                    Item("max_amplitude_rad", "largest amplitude", a, "rad", fmt=".10g")]
+        summary += [Item("max_amplitude_rad", "largest amplitude", a, "deg", _DEG, ".8g")]
         notes.append("The suspension goes slack beyond 90 deg: that, not this limit, bounds "
                      "the swing." if flexible else
                      "The limit is not reached by any swing short of going over the top.")
     else:
         peak = swing_loads(pend, a, points=points, samples=3).peak(quantity)
-        summary += [Item("max_amplitude_deg", "largest amplitude", a * _DEG, "deg", fmt=".8g"),
-                    Item("max_amplitude_rad", "largest amplitude", a, "rad", fmt=".10g"),
+        summary += [Item("max_amplitude_rad", "largest amplitude", a, "deg", _DEG, ".8g"),
                     Item(f"peak_at_limit_{quantity.rsplit('.', 1)[-1]}",
                          "peak there, recomputed", abs(peak.value), unit, fmt=".10g"),
                     Item("period_s", "period there", period_at(pend, a), "s", fmt=".8g")]
@@ -496,7 +492,7 @@ def sensitivity_report(design, amplitude: float | None = None) -> Report:
             Column("rate_s_per_day_per_unit", "rate change", "s/day per unit", fmt=".5g"))
     rows = tuple((s.input, s.value, s.unit, s.period_per_unit, s.relative,
                   s.rate_s_per_day_per_unit) for s in sens)
-    summary = [Item("amplitude_deg", "at amplitude", _deg_value(a), "deg", fmt=amplitude_text),
+    summary = [Item("amplitude_rad", "at amplitude", a, "deg", _DEG, fmt=amplitude_text),
                Item("period_s", "period", period_at(pend, a), "s", fmt=".10g")]
     if design.rating is not None:
         adj = rating_adjustment(pend, design.rating.parts, a, design.rating.nut_pitch_m)
