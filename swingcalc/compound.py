@@ -14,7 +14,7 @@ Method notes: ``docs/methods/compound-pendulum.md``, ``docs/methods/air.md``,
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from ._validate import amplitude_scalar, real_scalar
 from .body import Body, scaled_for_temperature
@@ -257,8 +257,6 @@ def thermal_rate(pendulum: CompoundPendulum) -> ThermalRate:
     def period(delta, plain=False):
         src = parts
         if plain:
-            from dataclasses import replace
-
             src = tuple(replace(p, expansion=body.arm_expansion_per_K) for p in parts)
         b = scaled_for_temperature(body, delta, src)
         return rebuilt(pendulum, b).small_angle_period_s
@@ -376,9 +374,7 @@ def _air_model(p, rho, mu, angular_speed) -> _AirModel:
             return _AirModel(f.added_mass("lens", "broadside", 1.0, radius=r, thickness=thick),
                              f.drag_coefficient("lens", "broadside"), math.pi * r * r, False,
                              ("lens", "broadside"))
-        m = _AirModel(f.added_mass("lens", "edgewise", 1.0, radius=r, thickness=thick),
-                      0.0, math.pi * r * r, False)
-        return _AirModel(m.added_volume_m3,
+        return _AirModel(f.added_mass("lens", "edgewise", 1.0, radius=r, thickness=thick),
                          f.friction_drag_coefficient(_reynolds(2 * r, speed, rho, mu)),
-                         m.drag_area_m2, False, ("lens", "edgewise"))
+                         math.pi * r * r, False, ("lens", "edgewise"))
     return _AirModel(0.0, 0.0, 0.0, False)      # point, custom, suspension line

@@ -629,7 +629,7 @@ def _parts(r: _Reader, suspension: Suspension) -> tuple:
         raise InvalidInput(f"{r.source}, [[part]]", MISSING,
                            "[[part]] tables (or a [pendulum] section for a point bob)",
                            "the design has no parts")
-    parts, names = [], set()
+    parts, resolved, names = [], [], set()
     for i, t in enumerate(tables):
         sid = f"part#{i}"
         r.labels[sid] = _label("part", t.get("name"), i)
@@ -645,11 +645,11 @@ def _parts(r: _Reader, suspension: Suspension) -> tuple:
         names.add(name)
         part = _part(r, sid, t, name)
         try:
-            resolve_part(part)
+            resolved.append(resolve_part(part))
         except InvalidInput as exc:
             raise _part_error(r, sid, t, part, exc) from None
         parts.append(part)
-    _check_reach(r, parts, suspension)
+    _check_reach(r, resolved, suspension)
     return tuple(parts)
 
 
@@ -667,12 +667,11 @@ def _part_error(r: _Reader, sid: str, t: dict, part: Part, exc: InvalidInput) ->
                         value, exc.allowed, exc.problem)
 
 
-def _check_reach(r: _Reader, parts, suspension: Suspension) -> None:
+def _check_reach(r: _Reader, resolved, suspension: Suspension) -> None:
     """A flexible suspension must end within the payload (else it hangs slack past it)."""
     if not suspension.flexible:
         return
-    lowest = max(resolve_part(p).centre_along_m + 0.5 * resolve_part(p).extent_along_m
-                 for p in parts)
+    lowest = max(p.centre_along_m + 0.5 * p.extent_along_m for p in resolved)
     if suspension.length > lowest * (1.0 + 1e-12):
         raise InvalidInput(r.where("suspension", "length"), r.data["suspension"]["length"],
                            f"a length that ends at the payload, at most {lowest:.6g} m (the "

@@ -203,7 +203,7 @@ def over_top_speed(pend: CompoundPendulum) -> float:
 
 def _payload(pend: CompoundPendulum) -> tuple[float, float]:
     """(mass, centre-of-mass distance along the hanging line) of all but the suspension."""
-    parts = [p for p in pend.body.parts if p.name != "suspension" or p.shape != "line"]
+    parts = [p for p in pend.body.parts if p.shape != "line"]
     m = sum(p.mass_kg for p in parts)
     t = pend.body.hang_tilt_rad
     d = sum(p.mass_kg * (p.centre_along_m * math.cos(t) + p.centre_across_m * math.sin(t))
@@ -266,14 +266,11 @@ def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,
     if n % 2:
         theta[n // 2] = 0.0
     series = _series(pend, a, theta, points)
-    k = pend.restoring_moment_N_m / pend.inertia_kg_m2
     energy = 2.0 * pend.restoring_moment_N_m * math.sin(0.5 * a) ** 2
     flexible = pend.body.suspension.flexible
-    slack = compression = None
+    compression = None
     warnings = []
-    if flexible and a > 0.5 * math.pi:
-        _, d_p = _payload(pend)
-        slack = math.acos(2.0 * d_p * k * math.cos(a) / (2.0 * d_p * k + pend.gravity_m_s2))
+    slack = _slack_angle(pend, a)
     peaks = _peaks(pend, a, points, slack)
     if slack is not None:
         warnings.append(
@@ -281,7 +278,7 @@ def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,
             f"of the {math.degrees(a):.2f} deg swing: the payload then falls freely and "
             "snatches the suspension taut again; these loads do not hold past that angle")
     if not flexible:
-        c_arm = _zero_tension_angle(pend, a)
+        c_arm = _zero_tension_angle(pend, a, pend.com_distance_m)
         if c_arm is not None:
             compression = c_arm
             warnings.append(
@@ -328,13 +325,7 @@ def peak(pend: CompoundPendulum, amplitude: float, quantity: str, points=None) -
     """The peak of one quantity of :func:`swing_loads` (a key of its ``peaks``), computed
     alone: what a search over amplitudes needs."""
     a = amplitude_scalar(amplitude)
-    points = dict(points or {})
-    slack = None
-    if pend.body.suspension.flexible and a > 0.5 * math.pi:
-        k = pend.restoring_moment_N_m / pend.inertia_kg_m2
-        _, d_p = _payload(pend)
-        slack = math.acos(2.0 * d_p * k * math.cos(a) / (2.0 * d_p * k + pend.gravity_m_s2))
-    found = _peaks(pend, a, points, slack, only=quantity)
+    found = _peaks(pend, a, dict(points or {}), _slack_angle(pend, a), only=quantity)
     if not found:
         raise KeyError(quantity)
     return found[0]
@@ -378,15 +369,24 @@ def _peak(pend, a, points, key, theta, values) -> Peak:
     return Peak(key, best_v, best_t)
 
 
-def _zero_tension_angle(pend, a) -> float | None:
-    """Angle where the arm tension m (d omega^2 + g cos theta) changes sign, if in (0, A)."""
-    k = pend.restoring_moment_N_m / pend.inertia_kg_m2
-    d, g = pend.com_distance_m, pend.gravity_m_s2
-    # d * 2k (cos t - cos A) + g cos t = 0
-    c = 2.0 * d * k * math.cos(a) / (2.0 * d * k + g)
-    if a <= 0.5 * math.pi or not -1.0 <= c <= 1.0:
+def _zero_tension_angle(pend, a, d) -> float | None:
+    """Angle in (0, A) where a tension m (d omega^2 + g cos theta) changes sign, if any:
+    with omega^2 = 2 (M/I)(cos theta - cos A) it vanishes at
+    cos theta = 2 d (M/I) cos A / (2 d (M/I) + g), reached only for A > 90 deg. ``d`` is
+    the centre-of-mass distance of what the tension carries (the body for the arm, the
+    payload for a flexible suspension's end)."""
+    if a <= 0.5 * math.pi:
         return None
-    return math.acos(c)
+    k = pend.restoring_moment_N_m / pend.inertia_kg_m2
+    c = 2.0 * d * k * math.cos(a) / (2.0 * d * k + pend.gravity_m_s2)
+    return math.acos(c) if -1.0 <= c <= 1.0 else None
+
+
+def _slack_angle(pend, a) -> float | None:
+    """Where a flexible suspension goes slack during a swing of ``a`` (None: never)."""
+    if not pend.body.suspension.flexible:
+        return None
+    return _zero_tension_angle(pend, a, _payload(pend)[1])
 
 
 @dataclass(frozen=True)
