@@ -298,9 +298,12 @@ def perturbed(design: Design, changes: Mapping[str, float]) -> Design:
         out = parse_data(data, design.source)
     except InvalidInput as exc:
         shown = ", ".join(f"{p} = {float(x):.8g}" for p, x in changes.items())
-        raise InvalidInput(f"{design.source}: tolerances", shown or MISSING,
-                           "changes that leave a valid design",
-                           f"the design re-read with {shown} is not valid: {exc}") from None
+        where = exc.field.removeprefix(f"{design.source}, ")
+        field = f"{design.source}, tolerances" + (f".{next(iter(changes))}"
+                                                  if len(changes) == 1 else "")
+        raise InvalidInput(field, shown or MISSING, exc.allowed,
+                           f"the band reaches a design that is not valid ({where}: "
+                           f"{exc.problem or 'invalid value'})") from None
     if env.latitude_rad is None and "environment.gravity" not in changes:
         out = replace(out, environment=replace(out.environment,
                                                gravity_given=env.gravity_given))
