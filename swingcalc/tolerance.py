@@ -244,7 +244,9 @@ def perturbed(design: Design, changes: Mapping[str, float]) -> Design:
         Exact: the design file is re-read with the values replaced, so everything derived
         from them (air density and viscosity from the temperature, a part's mass from its
         density) is recomputed. The working amplitudes and gravity of ``design`` are kept
-        (also when they were overridden after reading, e.g. by ``--gravity``).
+        (also when they were overridden after reading with :meth:`Design.with_changes`,
+        e.g. by ``--gravity``), and so is a point bob replaced by ``--length`` or ``--mass``.
+        Other changes made to a ``Design`` after reading are not seen: the file is.
 
     Notes
     -----
@@ -267,6 +269,13 @@ def perturbed(design: Design, changes: Mapping[str, float]) -> Design:
     if env.latitude_rad is None:
         envt.pop("latitude", None)
         envt["gravity"] = _si(env.gravity_m_s2, "acceleration")
+    if design.shorthand and isinstance(data.get("pendulum"), dict):
+        # a point bob may have been replaced after reading (--length, --mass, --suspension)
+        bob = design.parts[0]
+        data["pendulum"].update(length=_si(bob.position, "length"),
+                                bob_mass=_si(bob.mass, "mass"),
+                                suspension="flexible" if design.suspension.flexible
+                                else "rigid")
     for path, value in changes.items():
         if path not in paths:
             raise InvalidInput(f"change of {path}", path, "the path of a quantity in the "

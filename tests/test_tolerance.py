@@ -401,3 +401,20 @@ def test_analyse_rejects_bad_requests_in_one_line():
         with pytest.raises(InvalidInput) as err:
             call()
         assert text in str(err.value) and "\n" not in str(err.value)
+
+
+def test_perturbed_follows_a_point_bob_replaced_after_reading():
+    """As --length and --mass do: the re-read keeps the replaced bob. T = 2 pi sqrt(L/g)
+    at zero amplitude (textbook); tolerance a few ulp."""
+    import dataclasses
+
+    from swingcalc.body import point_bob
+
+    d = _point()
+    parts, susp = point_bob(0.64, 2.0, "rigid")
+    d = dataclasses.replace(d, parts=parts, suspension=susp)
+    assert inputs(d)[0].nominal == 0.64
+    p = perturbed(d, {})
+    assert p.parts[0].position == 0.64 and p.parts[0].mass == 2.0
+    assert period_at(p.pendulum, 0.0) == pytest.approx(
+        2 * math.pi * math.sqrt(0.64 / STANDARD_GRAVITY), rel=4e-16)
