@@ -64,7 +64,7 @@ def register(app: typer.Typer) -> None:
                   gravity: opt.Gravity = None, fmt: opt.Format = None,
                   output: opt.Output = None, force: opt.Force = False) -> None:
         """Worst case, root-sum-square and Monte Carlo bands of the period, the rate and
-        any load peak under the design's [tolerances], with the inputs ranked by their
+        any load peak under the design file's tolerances, with the inputs ranked by their
         contribution."""
         from ..report.tolerance import tolerance_report
 
