@@ -73,7 +73,8 @@ class _Group(TyperGroup):
 
 app = typer.Typer(
     name=PROG, cls=_Group, pretty_exceptions_enable=False, no_args_is_help=False,
-    add_completion=False, context_settings={"help_option_names": ["-h", "--help"]},
+    add_completion=False, rich_markup_mode=None,
+    context_settings={"help_option_names": ["-h", "--help"]},
     help="Pendulum and swinging-part design calculations: exact period at the real "
          "amplitude, small-angle check, speeds, tensions and energies, with safety cautions. "
          "Run with no command for the bundled example design.")
