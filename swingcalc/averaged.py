@@ -30,6 +30,12 @@ _GL_NODES = 48
 _TABLE_POINTS = 2049
 #: Below this Q (per beat: pi E / loss) the averaged model is flagged as not applicable.
 Q_LIMIT = 100.0
+# A driven run is checked every this many beats for being next to its limit cycle; within
+# _FILL_CLOSE (relative, in energy) of it the remaining beats are the linearised approach,
+# whose neglected second-order term is (_FILL_CLOSE)^2 = 1e-12 relative: the rounding
+# level of the beat-by-beat stepping itself (docs/methods/cycle-averaged.md).
+_FILL_CHECK = 1000
+_FILL_CLOSE = 1e-6
 
 
 def _gauss_legendre(n):
@@ -150,7 +156,8 @@ class _Table:
     def __call__(self, u):
         x = u * self.inv_h
         i = int(x)
-        i = min(i, self.last)
+        if i > self.last:
+            i = self.last
         f = x - i
         return self.c0[i] + f * (self.c1[i] + f * (self.c2[i] + f * self.c3[i]))
 
@@ -362,11 +369,45 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
         stick_cap = model.static_friction_torque
     elif model.friction_kind == "reaction":
         stick_cap = model.static_friction * model.pin_radius * model.mass * model.gravity
-    repeat = 0
+    sqrt = math.sqrt
+    loss, inv_2M, push_applies = tables.loss, tables.inv_2M, tables.push_applies
+
+    def beat(E, direction):
+        """One beat from the turning energy E > 0: (E at the next turning point, the
+        beat's loss-weighted mean energy, the push's energy, the first loss estimate)."""
+        u = sqrt(E * inv_2M)
+        L1 = loss(u)
+        if push_applies(direction, u):
+            w = tables.frac(u)
+            dE1 = tables.push_energy(E - w * L1)
+            Em = E - 0.5 * L1 + (1.0 - w) * dE1
+            L2 = loss(sqrt(Em * inv_2M) if Em > 0.0 else 0.0)
+            dE = tables.push_energy(E - w * L2)
+        else:
+            Em = E - 0.5 * L1
+            L2 = loss(sqrt(Em * inv_2M) if Em > 0.0 else 0.0)
+            dE = 0.0
+        return E - L2 + dE, Em, dE, L1
+
+    def holds(u):
+        """Whether static friction can hold the body at the turning point u."""
+        sin_a = 2.0 * u if lin else 2.0 * u * sqrt(max(0.0, 1.0 - u * u))
+        return stick_cap is not None and M * sin_a <= stick_cap
+
+    def fits(E):
+        """Whether a beat from E stays inside the model (tables, no stick, Q above the
+        limit): the limit cycle is filled in only where every check would pass."""
+        u = sqrt(E * inv_2M)
+        if u > tables.u_max or holds(u):
+            return False
+        L1 = loss(u)
+        return L1 < 0.5 * E and L1 * q_limit <= math.pi * E
+
     k = 0
-    fill_from = None
+    fill = None
+    check_at = _FILL_CHECK
     while k < n_beats:
-        u = tables.u_of(E)
+        u = sqrt(E * inv_2M)
         if u > tables.u_max:
             if tables.a_top >= math.pi - 1e-3:
                 ok_assumptions = False
@@ -375,16 +416,19 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
                            "position (over the top); use simulate")
                 break
             tables = _build(model, drive, min(math.pi - 1e-3, 2.0 * tables.a_top))
+            loss, inv_2M, push_applies = tables.loss, tables.inv_2M, tables.push_applies
             continue
-        A = tables.amp_of(E)
-        if stick_cap is not None and M * (A if lin else math.sin(A)) <= stick_cap:
+        if holds(u):
+            A = tables.amp_of(E)
             ok_assumptions = False
             success = False
             message = (f"stopped after {k} beats at amplitude {A:.6g} rad: static friction "
                        "can hold the body at its turning point (stick-slip); the averaged "
                        "model cannot follow it further: use simulate")
             break
-        L1 = tables.loss(u)
+        E_new, Em, dE, L1 = beat(E, direction)
+        if L1 >= 0.5 * E or L1 * q_limit > math.pi * E:
+            A = tables.amp_of(E)
         if L1 >= 0.5 * E:
             # the beat would lose most of its energy: the body stops within it (friction)
             ok_assumptions = False
@@ -399,20 +443,8 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
             warnings.append(f"beat {k + 1}: Q = {math.pi * E / L1:.4g} below {q_limit:g} at "
                             f"amplitude {A:.6g} rad: the averaged model is not accurate "
                             "there; use simulate")
-        push = tables.push_applies(direction, A)
-        if push:
-            w = tables.frac(u)
-            dE1 = tables.push_energy(E - w * L1)
-            Em = E - 0.5 * L1 + (1.0 - w) * dE1
-            L2 = tables.loss(tables.u_of(max(Em, 0.0)))
-            dE = tables.push_energy(E - w * L2)
-        else:
-            Em = E - 0.5 * L1
-            L2 = tables.loss(tables.u_of(max(Em, 0.0)))
-            dE = 0.0
-        E_new = E - L2 + dE
         if E_new <= 0.0:
-            e_mean.append(max(Em, 0.0))
+            e_mean.append(Em if Em > 0.0 else 0.0)
             pushes.append(dE)
             e_turn.append(0.0)
             k += 1
@@ -422,28 +454,18 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
         pushes.append(dE)
         e_turn.append(E_new)
         k += 1
-        # settled to rounding: the beat pattern (period 2 beats) repeats exactly
-        if k >= 4 and e_turn[-1] == e_turn[-3] and e_mean[-1] == e_mean[-3]:
-            repeat += 1
-            if repeat >= 8:
-                fill_from = k
-                break
-        else:
-            repeat = 0
         E = E_new
         direction = -direction
-    if fill_from is not None and fill_from < n_beats:
-        rest = n_beats - fill_from
-        pair_turn = np.array([e_turn[-2], e_turn[-1]])
-        pair_mean = np.array([e_mean[-2], e_mean[-1]])
-        pair_push = np.array([pushes[-2], pushes[-1]])
-        reps = (rest + 1) // 2
-        e_turn_arr = np.concatenate((np.frombuffer(e_turn, dtype=float),
-                                     np.tile(pair_turn, reps)[:rest]))
-        e_mean_arr = np.concatenate((np.frombuffer(e_mean, dtype=float),
-                                     np.tile(pair_mean, reps)[:rest]))
-        push_arr = np.concatenate((np.frombuffer(pushes, dtype=float),
-                                   np.tile(pair_push, reps)[:rest]))
+        if k >= check_at and drive is not None and direction == -1:
+            check_at = k + _FILL_CHECK
+            fill = _limit_cycle(beat, E, fits)
+            if fill is not None:
+                break
+    if fill is not None and k < n_beats:
+        turn, mean, push = fill.series(E, n_beats - k)
+        e_turn_arr = np.concatenate((np.frombuffer(e_turn, dtype=float), turn))
+        e_mean_arr = np.concatenate((np.frombuffer(e_mean, dtype=float), mean))
+        push_arr = np.concatenate((np.frombuffer(pushes, dtype=float), push))
         k = n_beats
     else:
         e_turn_arr = np.frombuffer(e_turn, dtype=float).copy()
@@ -458,6 +480,77 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
                          push_J=push_arr)
     res.summary = _summary(res)
     return res
+
+
+class _LimitCycle:
+    """The two-beat limit cycle of a driven run and the linearised approach to it.
+
+    ``E`` is the turning energy before a beat in the start's direction; ``rate`` the
+    factor by which its distance from the cycle shrinks per pair of beats; ``values`` and
+    ``slopes`` the six quantities of the pair (turning energy after each beat, each beat's
+    mean energy and push) at the cycle and their derivatives in that turning energy."""
+
+    def __init__(self, E, rate, values, slopes):
+        self.E, self.rate = E, rate
+        self.values, self.slopes = np.array(values), np.array(slopes)
+
+    def series(self, E_now: float, n: int):
+        """The next ``n`` beats' (turning energies, mean energies, pushes) from the turning
+        energy ``E_now`` (a beat in the start's direction comes first)."""
+        pairs = (n + 1) // 2
+        gap = (E_now - self.E) * self.rate ** np.arange(pairs)
+        v = self.values[:, None] + self.slopes[:, None] * gap
+        turn = np.empty(2 * pairs)
+        mean = np.empty(2 * pairs)
+        push = np.empty(2 * pairs)
+        turn[0::2], turn[1::2] = v[0], v[1]
+        mean[0::2], mean[1::2] = v[2], v[3]
+        push[0::2], push[1::2] = v[4], v[5]
+        return turn[:n], mean[:n], push[:n]
+
+
+def _limit_cycle(beat, E: float, fits) -> _LimitCycle | None:
+    """The limit cycle of the two-beat map next to the turning energy ``E`` (Newton on
+    P(x) - x with central-difference slopes), or None when ``E`` is not yet within
+    _FILL_CLOSE of it, the approach is not a contraction, or a beat there would leave
+    the model (``fits``)."""
+
+    def pair(x):
+        e1, m1, p1, _ = beat(x, -1)
+        if not e1 > 0.0:
+            raise ArithmeticError
+        e2, m2, p2, _ = beat(e1, 1)
+        return (e1, e2, m1, m2, p1, p2)
+
+    def gap(x):
+        return pair(x)[1] - x
+
+    x = E
+    for _ in range(8):
+        h = 1e-5 * x
+        try:
+            slope = (gap(x + h) - gap(x - h)) / (2.0 * h)
+            step = gap(x) / slope if slope < 0.0 else math.nan
+        except ArithmeticError:
+            return None
+        if not abs(step) < 0.5 * x:     # no contraction here, or far from it
+            return None
+        x -= step
+        if abs(step) <= 4e-16 * x:
+            break
+    else:
+        return None
+    rate = 1.0 + slope
+    if not (0.0 < rate < 1.0) or abs(E - x) > _FILL_CLOSE * x:
+        return None
+    values = pair(x)
+    if not (fits(x) and fits(values[0])):
+        return None
+    h = 1e-5 * x
+    up, down = pair(x + h), pair(x - h)
+    slopes = [(a - b) / (2.0 * h) for a, b in zip(up, down)]
+    values = (values[0], x) + values[2:]
+    return _LimitCycle(x, rate, values, slopes)
 
 
 class _Tables:
@@ -481,14 +574,14 @@ def _build(model: SwingModel, drive, a_top) -> _Tables:
 
     loss = _Table(t.u_max, total_loss)
     t.loss = loss
+    # u = sin(A/2) (A/2 for the linear model) from the energy, for E >= 0
+    t.inv_2M = 1.0 / (2.0 * M)
     if lin:
-        t.u_of = lambda E: math.sqrt(max(E, 0.0) / (2.0 * M))
         t.amp_of = lambda E: math.sqrt(max(E, 0.0) * 2.0 / M)
     else:
-        t.u_of = lambda E: math.sqrt(max(E, 0.0) / (2.0 * M))
         t.amp_of = lambda E: 2.0 * math.asin(min(1.0, math.sqrt(max(E, 0.0) / (2.0 * M))))
     if drive is None:
-        t.push_applies = lambda direction, A: False
+        t.push_applies = lambda direction, u: False
         return t
     a = drive.angle
     dn = drive.direction
@@ -496,10 +589,11 @@ def _build(model: SwingModel, drive, a_top) -> _Tables:
     frac = _Table(t.u_max, lambda u: _loss_density_fraction(model, amp(u), dn * a))
     t.frac = frac
 
-    def push_applies(direction, A):
-        if not per_beat and direction != dn:
-            return False
-        return abs(a) < A
+    u_a = 0.5 * abs(a) if lin else math.sin(0.5 * abs(a))
+
+    def push_applies(direction, u):
+        """Whether the beat in ``direction`` at amplitude u passes the push angle."""
+        return (per_beat or direction == dn) and u_a < u
 
     t.push_applies = push_applies
     V_a = 0.5 * M * a * a if lin else 2.0 * M * math.sin(0.5 * a) ** 2
