@@ -332,6 +332,7 @@ from .simulate import register as _register_simulate  # noqa: E402 - the simulat
 
 _designs.register(app)
 _register_simulate(app)
+__import__(f"{__package__}.plot", fromlist=["register"]).register(app)  # the plot command
 
 
 def main(argv=None) -> None:
