@@ -24,9 +24,19 @@ import numpy as np
 
 from .errors import MISSING, InvalidInput, suggest
 
-__all__ = ["KINDS", "FORMATS", "RC", "PlotExtraMissing", "require_matplotlib",
-           "period_figure", "phase_figure", "loads_figure", "decay_figure", "design_figure",
-           "figure_bytes"]
+__all__ = [
+    "FORMATS",
+    "KINDS",
+    "RC",
+    "PlotExtraMissing",
+    "decay_figure",
+    "design_figure",
+    "figure_bytes",
+    "loads_figure",
+    "period_figure",
+    "phase_figure",
+    "require_matplotlib",
+]
 
 #: Plot kinds of :func:`design_figure`.
 KINDS = ("period", "phase", "loads", "decay")
@@ -204,10 +214,10 @@ def period_figure(pendulum, amplitudes=(), *, low: float = 0.0,
                 0.98, 0.03, f"working amplitudes, T:\n{listed}", transform=(
                     zx if zoom else ax).transAxes, ha="right", va="bottom", fontsize=7.5,
                 color=_WORK, wrap=True,
-                bbox=dict(boxstyle="round,pad=0.3", fc="white", ec=_WORK, lw=0.6))
+                bbox={"boxstyle": "round,pad=0.3", "fc": "white", "ec": _WORK, "lw": 0.6})
         _title(fig, name, revision, "Period against amplitude")
-        notes = ["Conservative swing (no friction or drag); T0 = 2π √(I/M) with the air's "
-                 "buoyancy and added mass where the design has air."]
+        notes = [("Conservative swing (no friction or drag); T0 = 2π √(I/M) with the air's "
+                  "buoyancy and added mass where the design has air.")]
         if band_note:
             notes.append(band_note)
         lines = _footer(fig, notes)
@@ -284,7 +294,7 @@ def phase_figure(pendulum, amplitudes=(), *, name: str = "", revision: str = "",
     flexible = pendulum.body.suspension.flexible
     zoom = amps.size > 0 and float(amps.max()) < math.radians(25.0)
     with _style():
-        fig = _figure(11.0 if zoom else 8.4, 5.8)
+        fig = _figure(11.0 if zoom else 8.4, 6.6)
         ax = fig.add_subplot(1, 2, 1) if zoom else fig.add_subplot(1, 1, 1)
         x = _deg(theta)
         if flexible:
@@ -316,7 +326,7 @@ def phase_figure(pendulum, amplitudes=(), *, name: str = "", revision: str = "",
         ax.set_ylabel("angular velocity ω [rad/s]")
         sec = ax.secondary_yaxis("right", functions=(lambda w: w / w0, lambda r: r * w0))
         sec.set_ylabel("ω / ω0 [-]")
-        ax.legend(loc="upper center", ncol=2, fontsize=7.0)
+        ax.legend(loc="upper center", bbox_to_anchor=(0.5, -0.12), ncol=2, fontsize=7.0)
         if zoom:
             zx = fig.add_subplot(1, 2, 2)
             _working(zx, pendulum, amps, w0, n, swing_loads, close_up=True)
@@ -326,13 +336,13 @@ def phase_figure(pendulum, amplitudes=(), *, name: str = "", revision: str = "",
             zx.set_title("close-up of the working orbits", fontsize=9)
             zx.legend(loc="upper right", fontsize=7.0)
         _title(fig, name, revision, f"Phase portrait (ω0 = {w0:.6g} rad/s)")
-        notes = ["Conservative swing: orbits are exact energy contours; damping would make "
-                 "them spiral in toward the hanging position."]
+        notes = [("Conservative swing: orbits are exact energy contours; damping would make "
+                  "them spiral in toward the hanging position.")]
         if flexible:
             notes.append("Shaded: the flexible suspension would be in compression (it goes "
                          "slack and the payload falls freely); no state inside it holds.")
         lines = _footer(fig, notes)
-        fig.subplots_adjust(left=0.08, right=0.92, top=0.87, bottom=0.1 + 0.022 * lines,
+        fig.subplots_adjust(left=0.08, right=0.92, top=0.88, bottom=0.26 + 0.02 * lines,
                             wspace=0.35)
     return fig
 
@@ -386,8 +396,8 @@ def _slack_region(ax, pendulum, n: int) -> None:
         top = w0sq
         while tension(t, top) <= 0.0:
             top *= 2.0
-        ws[j] = math.sqrt(brentq(lambda w2: tension(t, w2), 0.0, top, xtol=1e-14 * top,
-                                 rtol=1e-15))
+        ws[j] = math.sqrt(brentq(lambda w2, t=t: tension(t, w2), 0.0, top,
+                                 xtol=1e-14 * top, rtol=1e-15))
     for side, tag in ((1.0, "right"), (-1.0, "left")):
         xs = side * _deg(th)
         ax.fill_between(xs, -ws, ws, color=_SLACK, alpha=0.75, lw=0, gid=f"slack-{tag}",
@@ -452,8 +462,9 @@ def loads_figure(loads, *, context: str = "general", name: str = "", revision: s
                 for lo, hi in ((-x[-1] if x[-1] > 0 else x[0], -s), (s, x[-1])):
                     ax.axvspan(min(lo, hi), max(lo, hi), color=_SLACK, alpha=0.6, lw=0,
                                gid="slack-angles")
-            top.text(0.99, 0.02, f"shaded: suspension slack beyond ±{s:.4g}°, loads do not "
-                     "hold", transform=top.transAxes, ha="right", va="bottom", fontsize=7.5)
+            bottom.text(0.5, 0.03, f"shaded: suspension slack beyond ±{s:.4g}°, loads do not "
+                        "hold", transform=bottom.transAxes, ha="center", va="bottom",
+                        fontsize=7.5, bbox={"fc": "white", "ec": "none", "alpha": 0.85})
         top.set_xlim(x[0], x[-1]) if x[0] < x[-1] else None
         _title(fig, name, revision,
                f"Loads through the swing at A = {math.degrees(loads.amplitude_rad):.4g}°")
@@ -539,13 +550,13 @@ def design_figure(kind: str, design, *, low: float | None = None, high: float | 
     if word not in KINDS:
         raise InvalidInput("KIND", kind, ", ".join(KINDS), f"unknown plot{suggest(word, KINDS)}")
     require_matplotlib()
-    label = dict(name=design.name, revision=design.revision)
+    label = {"name": design.name, "revision": design.revision}
     amps = design.amplitudes_rad
     if word == "period":
         band, note = _period_band(design)
         lo = 0.0 if low is None else low
         hi = math.radians(170.0) if high is None else high
-        n = samples or max(2, min(20001, int(round(math.degrees(hi - lo) * 2)) + 1))
+        n = samples or max(2, min(20001, round(math.degrees(hi - lo) * 2) + 1))
         return period_figure(design.pendulum, amps, low=lo, high=hi, samples=n, band=band,
                              band_note=note, **label)
     if word == "phase":

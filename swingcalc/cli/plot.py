@@ -11,7 +11,7 @@ from __future__ import annotations
 import math
 import sys
 from pathlib import Path
-from typing import Annotated, Optional
+from typing import Annotated
 
 import typer
 
@@ -75,25 +75,25 @@ def register(app: typer.Typer) -> None:
             metavar="KIND", help="period (period against amplitude), phase (phase "
             "portrait), loads (loads through the swing) or decay (simulated amplitude "
             "decay).", show_default=False)],
-        design: Annotated[Optional[Path], typer.Argument(
+        design: Annotated[Path | None, typer.Argument(
             metavar="[DESIGN.toml]", help="Design file (TOML). Default: the bundled "
             "long-case clock.", show_default=False)] = None,
-        amplitude: Annotated[Optional[str], _text(
+        amplitude: Annotated[str | None, _text(
             "--amplitude", "ANGLES", "Working amplitude(s) instead of the design's (bare: "
             "deg). loads: the largest is drawn; decay: the first is the start.")] = None,
-        low: Annotated[Optional[str], _text(
+        low: Annotated[str | None, _text(
             "--from", "ANGLE", "period: amplitude range from (default 0 deg).")] = None,
-        high: Annotated[Optional[str], _text(
+        high: Annotated[str | None, _text(
             "--to", "ANGLE", "period: amplitude range to (default 170 deg).")] = None,
-        cycles: Annotated[Optional[str], _text(
+        cycles: Annotated[str | None, _text(
             "--cycles", "N", "decay: complete cycles to simulate (default 100).")] = None,
-        samples: Annotated[Optional[str], _text(
+        samples: Annotated[str | None, _text(
             "--samples", "N", "Points per curve (period, phase) or angles (loads), "
             "3-20001.")] = None,
         gravity: opt.Gravity = None,
-        fmt: Annotated[Optional[str], _text(
+        fmt: Annotated[str | None, _text(
             "--format", "FORMAT", "png or svg (default: from the --output suffix).")] = None,
-        output: Annotated[Optional[str], typer.Option(
+        output: Annotated[str | None, typer.Option(
             "--output", "-o", metavar="FILE", help="The file to write (.png or .svg); "
             "required.")] = None,
         force: opt.Force = False,
