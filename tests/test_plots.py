@@ -180,6 +180,47 @@ def test_period_has_no_band_without_tolerances():
     assert "tolerance-band" not in _gids(plots.design_figure("period", d))
 
 
+def test_period_band_is_the_first_order_band_of_the_period_without_the_amplitude():
+    """Textbook first-order error propagation (GUM, ISO/IEC Guide 98-3, root-sum-square
+    of independent contributions): T0 = 2 pi sqrt(L/g) gives dT0 = (T0/2)(dL/L) and
+    -(T0/2)(dg/g); the band at amplitude A is T/T0 = (2/pi) K(m) ([calc], mpmath) times
+    that, since T/T0 depends on A only. The amplitude's own tolerance is left out (it is
+    the x axis). Tolerance 1e-5: the bands come from central differences, whose relative
+    error is about (t/x)^2 / 8 < 1e-6 here."""
+    from swingcalc.designfile import parse_design
+
+    text = """
+name = "banded bob"
+revision = "1"
+[pendulum]
+length = "1.0 m"
+bob_mass = "1 kg"
+suspension = "rigid"
+[swing]
+amplitude = ["40 deg"]
+[tolerances]
+"pendulum.length" = "2 mm"
+"environment.gravity" = "0.01 m/s^2"
+"swing.amplitude" = "5 deg"
+"""
+    d = parse_design(text, "band test")
+    fig = plots.design_figure("period", d)
+    t0 = 2 * math.pi * math.sqrt(1.0 / G)
+    rss = math.hypot(0.5 * t0 * 0.002 / 1.0, 0.5 * t0 * 0.01 / G)
+    band = [c for ax in fig.axes for c in ax.collections if c.get_gid() == "tolerance-band"]
+    assert len(band) == 1
+    v = band[0].get_paths()[0].vertices
+    for want in (0.0, 90.0, 160.0):
+        ys = np.sort(v[np.isclose(v[:, 0], want, rtol=0, atol=1e-9), 1])
+        assert ys.size >= 2
+        r = float(mp_period_ratio(math.radians(want)))
+        assert (ys[-1] - ys[0]) / 2 == pytest.approx(r * rss, rel=1e-5), want
+        assert (ys[-1] + ys[0]) / 2 == pytest.approx(r * t0, rel=1e-13), want
+    footer = " ".join(t.get_text() for t in fig.texts)
+    assert "pendulum.length" in footer and "environment.gravity" in footer
+    assert "(swing.amplitude" not in footer and ", swing.amplitude" not in footer
+
+
 # --------------------------------------------------------------------- phase
 
 def test_separatrix_passes_through_the_inverted_energy_points():
