@@ -197,7 +197,7 @@ def period_figure(pendulum, amplitudes=(), *, low: float = 0.0,
     n = _count(samples, "samples", 2, 20001)
     amps = _amplitudes(amplitudes)
     t0 = pendulum.small_angle_period_s
-    zoom = amps.size > 0 and float(amps.max()) < math.radians(25.0) and hi > 0.5
+    zoom = amps.size > 0 and 0.0 < float(amps.max()) < math.radians(25.0) and hi > 0.5
     with _style():
         fig = _figure(12.0 if zoom else 8.0, 5.8)
         ax = fig.add_subplot(1, 2, 1) if zoom else fig.add_subplot(1, 1, 1)
@@ -292,7 +292,7 @@ def phase_figure(pendulum, amplitudes=(), *, name: str = "", revision: str = "",
     w0 = pendulum.natural_angular_frequency_rad_s
     theta = np.linspace(-math.pi, math.pi, n)
     flexible = pendulum.body.suspension.flexible
-    zoom = amps.size > 0 and float(amps.max()) < math.radians(25.0)
+    zoom = amps.size > 0 and 0.0 < float(amps.max()) < math.radians(25.0)
     with _style():
         fig = _figure(11.0 if zoom else 8.4, 6.6)
         ax = fig.add_subplot(1, 2, 1) if zoom else fig.add_subplot(1, 1, 1)
@@ -459,13 +459,13 @@ def loads_figure(loads, *, context: str = "general", name: str = "", revision: s
         if loads.slack_angle_rad is not None:
             s = math.degrees(loads.slack_angle_rad)
             for ax in (top, bottom):
-                for lo, hi in ((-x[-1] if x[-1] > 0 else x[0], -s), (s, x[-1])):
-                    ax.axvspan(min(lo, hi), max(lo, hi), color=_SLACK, alpha=0.6, lw=0,
-                               gid="slack-angles")
+                for lo, hi in ((x[0], -s), (s, x[-1])):
+                    ax.axvspan(lo, hi, color=_SLACK, alpha=0.6, lw=0, gid="slack-angles")
             bottom.text(0.5, 0.03, f"shaded: suspension slack beyond ±{s:.4g}°, loads do not "
                         "hold", transform=bottom.transAxes, ha="center", va="bottom",
                         fontsize=7.5, bbox={"fc": "white", "ec": "none", "alpha": 0.85})
-        top.set_xlim(x[0], x[-1]) if x[0] < x[-1] else None
+        if x[0] < x[-1]:
+            top.set_xlim(x[0], x[-1])
         _title(fig, name, revision,
                f"Loads through the swing at A = {math.degrees(loads.amplitude_rad):.4g}°")
         notes = list(loads.warnings) + ["Caution: " + c for c in cautions_for(context, True)]
@@ -506,7 +506,8 @@ def decay_figure(result, *, name: str = "", revision: str = ""):
                 gid="negative-side")
         ax.set_xlabel("time t [s]")
         ax.set_ylabel("amplitude |θ| at the turning point [deg]")
-        ax.set_ylim(bottom=0.0)
+        top = float(np.max(np.abs(_deg(th)))) if th.size else 0.0
+        ax.set_ylim(0.0, 1.1 * top if top > 0 else 1.0)
         if t.size:
             ax.set_xlim(0.0, max(float(t[-1]), 1e-9))
         sec = ax.secondary_xaxis("top", functions=(lambda x: x / t0, lambda c: c * t0))

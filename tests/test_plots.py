@@ -397,6 +397,8 @@ def test_cli_writes_png_and_svg_byte_identically_and_never_clobbers(tmp_path):
     (["plot", "period", "-o", "{d}/x.png", "--to", "190 deg"], ("--to", "180")),
     (["plot", "decay", "-o", "{d}/x.png", "--cycles", "0"], ("--cycles",)),
     (["plot", "loads", "-o", "{d}/x.png", "--amplitude", "200"], ("--amplitude",)),
+    (["plot", "decay", "-o", "{d}/x.png", "--amplitude", "0"], ("--amplitude", "> 0")),
+    (["plot", "period", "-o", "{d}/x.png", "--samples", "1"], ("--samples",)),
 ])
 def test_cli_bad_input_is_one_line_and_writes_nothing(tmp_path, args, words):
     """PRODUCT.md: bad input exits 2 with one line on stderr, no traceback, nothing

@@ -129,6 +129,9 @@ def _run(kind, design, amplitude, low, high, cycles, samples, gravity, fmt, outp
     start = None
     if amplitude is not None:
         start = max(d.amplitudes_rad) if word == "loads" else d.amplitudes_rad[0]
+        if word in ("loads", "decay") and start == 0.0:
+            raise InvalidInput("--amplitude", amplitude, "an amplitude > 0, e.g. '10 deg'",
+                               "nothing swings at 0")
     with a._options_named(**a._given(amplitude=(amplitude, "--amplitude"),
                                      gravity=(gravity, "--gravity"))):
         fig = design_figure(word, d, low=lo, high=hi, amplitude=start, cycles=n_cycles,
