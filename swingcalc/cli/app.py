@@ -329,9 +329,11 @@ def motion(angle: Annotated[str, typer.Option(
 
 from . import designs as _designs  # noqa: E402 - registers the design commands on the app
 from .simulate import register as _register_simulate  # noqa: E402 - the simulate command
+from .spec import register as _register_spec  # noqa: E402 - the spec command
 
 _designs.register(app)
 _register_simulate(app)
+_register_spec(app)
 
 
 def main(argv=None) -> None:

@@ -37,8 +37,9 @@ def check_writable(path, force: bool = False, field: str = "--output") -> Path:
     return p
 
 
-def write_atomic(path, text: str, force: bool = False, field: str = "--output") -> Path:
-    """Write ``text`` to ``path`` all at once, or not at all.
+def write_atomic(path, text: str | bytes, force: bool = False, field: str = "--output") -> Path:
+    """Write ``text`` (str: UTF-8 text; bytes: as they are, e.g. a PDF) to ``path`` all at
+    once, or not at all.
 
     The text goes to a temporary file in the same folder, is flushed to disk, and is then
     renamed into place (``force``) or hard-linked into place, which fails if the name
@@ -54,7 +55,9 @@ def write_atomic(path, text: str, force: bool = False, field: str = "--output") 
                            f"cannot write there ({exc.strerror or exc})") from None
     try:
         try:
-            with os.fdopen(fd, "w", encoding="utf-8", newline="") as f:
+            binary = isinstance(text, (bytes, bytearray))
+            with (os.fdopen(fd, "wb") if binary
+                  else os.fdopen(fd, "w", encoding="utf-8", newline="")) as f:
                 f.write(text)
                 f.flush()
                 os.fsync(f.fileno())

@@ -27,7 +27,10 @@ RC = {"svg.fonttype": "none", "svg.hashsalt": "swingcalc-spec-sheet",
       "font.family": "sans-serif", "font.size": 6.5, "axes.unicode_minus": False}
 # The SVG names a font the reader's viewer supplies; metrics for the layout come from the
 # font matplotlib ships (DejaVu Sans), the same on every machine. PDF: Helvetica (core).
-_FONTS = {"svg": ["DejaVu Sans"], "pdf": ["Helvetica"]}
+# The core Helvetica's regular face is "Medium" in its metrics file: asking for "normal"
+# would log a font fallback on every run.
+_FONTS = {"svg": {"font.sans-serif": ["DejaVu Sans"]},
+          "pdf": {"font.sans-serif": ["Helvetica"], "font.weight": "medium"}}
 
 _PT = 1.0 / 72.0                    # inch per point
 _SIZE = 6.5                         # body text [pt]
@@ -90,7 +93,7 @@ def render_vector(sheet: SpecSheet, fmt: str) -> bytes:
     title_h = 4 * _ROW + 10.0
     height = (2 * _MARGIN + title_h + (len(body) + sections + 2) * _ROW
               + (len(note_lines) + len(caution_lines) + 3) * _ROW)
-    rc = dict(RC, **{"font.sans-serif": _FONTS[fmt]})
+    rc = dict(RC, **_FONTS[fmt])
     with matplotlib.rc_context(rc):
         fig = Figure(figsize=(width * _PT, height * _PT))
         tr = fig.dpi_scale_trans
