@@ -53,7 +53,7 @@ from __future__ import annotations
 import math
 import re
 import unicodedata
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from functools import cached_property
 from pathlib import Path
 
@@ -66,7 +66,8 @@ from .errors import MISSING, InvalidInput
 from .quantity import parse_quantity, parse_values, suggest
 
 __all__ = ["CONTEXTS", "GRAVITY_ALLOWED", "Design", "Environment", "Impact", "Rating",
-           "Tolerance", "load_design", "parse_design", "parse_gravity", "point_design"]
+           "Tolerance", "load_design", "parse_data", "parse_design", "parse_gravity",
+           "point_design"]
 
 #: What the swinging part is for; it selects the safety cautions shown with loads.
 CONTEXTS = ("clock", "ride", "gate", "impact", "damper", "load", "general")
@@ -214,6 +215,9 @@ class Design:
     date: str = ""
     source: str = ""
     shorthand: bool = False          # given as a [pendulum] section
+    # The parsed TOML it was read from (None when built in code): a tolerance analysis
+    # re-reads it with one value changed. Not compared, hashed or shown; do not modify it.
+    data: dict | None = field(default=None, repr=False, compare=False)
 
     @property
     def gravity_m_s2(self) -> float:
@@ -455,6 +459,14 @@ def parse_design(text: str, source: str = "<design>") -> Design:
         data = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise _syntax_error(exc, text, source) from None
+    return parse_data(data, source, text)
+
+
+def parse_data(data: dict, source: str = "<design>", text: str = "") -> Design:
+    """Validate an already parsed design file (the dict ``tomllib`` gives) and return a
+    :class:`Design`; ``text``, when given, lets error messages name line numbers.
+
+    The tolerance analysis uses it to re-read a design with one value changed."""
     r = _Reader(data, text, source)
     r.check_known("", data)
     shorthand = "pendulum" in data
@@ -489,7 +501,7 @@ def parse_design(text: str, source: str = "<design>") -> Design:
         impact=_impact(r, r.table("impact"), points),
         rating=_rating(r, r.table("rating"), parts),
         tolerances=_tolerances(r, data.get("tolerances"), data),
-        source=source, shorthand=shorthand)
+        source=source, shorthand=shorthand, data=data)
     try:
         design.body  # noqa: B018 - assemble now, so a body that cannot hang is a file error
         design.pendulum  # noqa: B018
