@@ -25,8 +25,15 @@ from .linear import clock_rate_error, small_angle_period_error
 from .loads import impact, swing_loads
 from .sizing import period_at, rating_adjustment, sensitivities
 
-__all__ = ["SpecRow", "spec_rows", "spec_values", "spec_bands", "BEATS_PER_PERIOD",
-           "SLACK_FREE_AMPLITUDE_RAD", "SECTIONS"]
+__all__ = [
+    "BEATS_PER_PERIOD",
+    "SECTIONS",
+    "SLACK_FREE_AMPLITUDE_RAD",
+    "SpecRow",
+    "spec_bands",
+    "spec_rows",
+    "spec_values",
+]
 
 #: Beats in one period of a clock pendulum: one each way (common practice for clocks:
 #: a seconds pendulum, T = 2 s, beats once a second, 3600 beats per hour).
@@ -293,8 +300,6 @@ def spec_bands(design) -> dict:
     :func:`swingcalc.tolerance.linear_bands`."""
     if not design.tolerances:
         return {}
-    try:
-        from .tolerance import linear_bands
-    except ModuleNotFoundError:     # TEMPORARY until swingcalc.tolerance lands on main
-        return {}
+    from .tolerance import linear_bands
+
     return linear_bands(design, spec_values)

@@ -20,6 +20,8 @@ Sources:
 from __future__ import annotations
 
 import csv
+import dataclasses
+import functools
 import io
 import json
 import math
@@ -28,8 +30,8 @@ import zlib
 
 import mpmath
 import pytest
-
 from helpers import mp_period_ratio, rel
+
 from swingcalc import examples
 from swingcalc.compound import thermal_rate
 from swingcalc.designfile import load_design, parse_design, point_design
@@ -48,6 +50,12 @@ SHOWN_RTOL = 10.0 ** (1 - VALUE_DIGITS)
 
 def _design(name):
     return load_design(examples.path(name))
+
+
+@functools.cache
+def _clock_sheet(system="si-mm"):
+    """The bundled clock's sheet, with its bands (2 n + 1 = 9 evaluations: computed once)."""
+    return spec_sheet(_design("long_case_clock.toml"), system)
 
 
 def _values(rows):
@@ -186,7 +194,11 @@ def test_rows_equal_the_library_called_directly(name):
         assert v["impact_energy_J"] == r.potential_energy_J
         assert v["striking_speed_m_s"] == r.striking_speed_m_s
         assert v["absorbed_energy_J"] == r.absorbed_J
-    assert len(v) == len(spec_rows(d))      # keys are unique
+    rows = spec_rows(d)
+    assert len(v) == len(rows)              # keys are unique
+    for r in rows:                          # every kind has a unit in every system
+        for system in U.SYSTEMS:
+            U.display_unit(r.kind, system)
 
 
 def test_clock_rating_rows_equal_rating_adjustment():
@@ -255,13 +267,6 @@ def test_unit_factors_match_nist_sp811_printed_values(kind, si_per_unit):
     assert one_unit_in_si == pytest.approx(si_per_unit, rel=5e-7)
 
 
-def test_every_row_kind_has_a_display_unit_in_every_system():
-    for name in examples.names():
-        for r in spec_rows(_design(name)):
-            for system in U.SYSTEMS:
-                U.display_unit(r.kind, system)
-
-
 def test_inch_pound_sheet_shows_the_same_quantities_converted():
     """Same keys, labels and SI values; each shown value is the SI one converted (within
     the 7-digit rounding of each side)."""
@@ -288,7 +293,7 @@ def test_inch_pound_sheet_shows_the_same_quantities_converted():
 def test_csv_parses_back_to_the_values_at_the_shown_precision(system):
     """csv module: header, one row per quantity; each number, read back and converted to
     SI, is the row's SI value within the 7-digit rounding."""
-    d = _design("long_case_clock.toml")
+    d = dataclasses.replace(_design("long_case_clock.toml"), tolerances=())   # bands: below
     rows = {r.key: r for r in spec_rows(d)}
     text = to_csv(spec_sheet(d, system))
     table = list(csv.reader(io.StringIO(text)))
@@ -327,7 +332,7 @@ def test_json_keeps_si_and_the_cautions():
 def _pdf_text(data: bytes) -> str:
     """The text of every Flate stream of a PDF (zlib), joined."""
     out = []
-    for m in re.finditer(rb"stream\r?\n(.*?)\r?\nendstream", data, re.S):
+    for m in re.finditer(rb"stream\r?\n(.*?)\r?\nendstream", data, re.DOTALL):
         try:
             out.append(zlib.decompress(m.group(1)).decode("latin-1"))
         except zlib.error:
@@ -342,9 +347,10 @@ def test_vector_sheet_holds_labels_and_values_as_text_and_is_reproducible(fmt):
     from swingcalc.report.spec_drawing import render_vector
 
     d = _design("long_case_clock.toml")
-    sheet = spec_sheet(d, "si-mm")
+    sheet = _clock_sheet("si-mm")
     data = render_vector(sheet, fmt)
-    assert data == render_vector(spec_sheet(d, "si-mm"), fmt)     # byte-identical
+    # byte-identical on a second run (a whole second CLI run: tests/test_cli_spec.py)
+    assert data == render_vector(sheet, fmt)
     if fmt == "svg":
         text = data.decode("utf-8")
         assert text.startswith("<?xml") and "<svg" in text
@@ -377,3 +383,70 @@ def test_vector_formats_refused_without_matplotlib(monkeypatch):
     monkeypatch.setitem(sys.modules, "matplotlib", None)       # import fails
     with pytest.raises(InvalidInput, match=r"plot extra"):
         require_matplotlib("pdf")
+
+
+# --- tolerance bands ----------------------------------------------------------------------
+
+_BANDED = '''name = "banded bob"
+[pendulum]
+length = "1 m"
+bob_mass = "2 kg"
+suspension = "rigid"
+[swing]
+amplitude = "30 deg"
+[tolerances]
+"pendulum.length" = "1 mm"
+"pendulum.bob_mass" = "1 %"
+'''
+
+
+def test_bands_of_a_point_bob_match_hand_error_propagation():
+    """Point bob, L = 1 m +- 1 mm, m = 2 kg +- 1 %, A = 30 deg (by hand, outside the code):
+    the period does not depend on the mass, so its band is the length's alone,
+    c = 2 pi / sqrt(g) R(A) (sqrt(L + t) - sqrt(L - t)) / 2 (mpmath, 40 digits), and
+    RSS = worst case; the peak pivot load m g (3 - 2 cos A) does not depend on L, so its
+    band is 1 % of it. Tolerances: 1e-9, the bands are differences of two periods that
+    each carry ~1e-15 relative (a difference of 1e-3 of the period keeps ~1e-12)."""
+    d = parse_design(_BANDED, "<banded>")
+    sheet = spec_sheet(d, "si")
+    a = math.radians(30.0)
+    with mpmath.workdps(40):
+        L, t = mpmath.mpf(1), mpmath.mpf("0.001")
+        want = (2 * mpmath.pi / mpmath.sqrt(mpmath.mpf(G)) * mp_period_ratio(a)
+                * (mpmath.sqrt(L + t) - mpmath.sqrt(L - t)) / 2)
+    period = sheet.row("amplitude_1.period_s")
+    assert rel(period.rss, want) < 1e-9 and rel(period.worst, want) < 1e-9
+    load = sheet.row("amplitude_1.peak_pivot_load_N")
+    peak = 2.0 * G * (3 - 2 * math.cos(a))
+    assert load.rss == pytest.approx(0.01 * peak, rel=1e-9)
+    assert load.worst == pytest.approx(0.01 * peak, rel=1e-9)
+    assert sheet.row("mass_kg").rss == pytest.approx(0.02, rel=1e-12)
+    # shown: 3 significant digits in the display unit
+    assert sheet.row("amplitude_1.period_s").rss_shown == f"{float(want):.3g}"
+    assert "pendulum.length +/- 1 mm" in " ".join(spec_sheet(d, "si-mm").tolerances)
+
+
+def test_no_tolerances_no_bands():
+    sheet = spec_sheet(_design("gate_arm.toml"), "si")
+    assert all(r.rss is None and r.rss_shown == "" for r in sheet.rows)
+    assert any("no +/- bands" in n for n in sheet.notes)
+
+
+@pytest.mark.slow
+def test_clock_bands_in_csv_parse_back_and_rss_within_worst():
+    """The bundled clock's [tolerances]: every numeric row has a band; RSS <= worst case
+    (a root-sum-square never exceeds the sum of magnitudes); the CSV shows them in the
+    display unit to 3 digits (half a unit of the 3rd digit: 5e-3 relative)."""
+    sheet = _clock_sheet("si-mm")
+    numeric = [r for r in sheet.rows if isinstance(r.value, float)]
+    assert all(r.rss is not None for r in numeric)
+    assert all(r.rss <= r.worst * (1 + 1e-12) for r in numeric)
+    table = {row[6]: row for row in csv.reader(io.StringIO(to_csv(sheet))) if row[6]}
+    for r in numeric:
+        if r.rss > 0:
+            shown = float(table[r.key][4])
+            back = U.to_display(r.rss, r.kind, "si-mm", difference=True)
+            assert shown == pytest.approx(abs(back), rel=5e-3)
+    # the period's band is dominated by the bob's position: 0.2 mm on ~1 m moves the
+    # period by about T dL / 2L = 2e-4 s (first order, common practice)
+    assert sheet.row("amplitude_1.period_s").rss == pytest.approx(2e-4, rel=0.3)

@@ -4,7 +4,7 @@ CSV (for a CAD table), JSON (SI), Markdown, or a vector table in SVG or PDF."""
 from __future__ import annotations
 
 import sys
-from typing import Annotated, Optional
+from typing import Annotated
 
 import typer
 
@@ -21,7 +21,7 @@ Units = Annotated[str, typer.Option(
     "--units", metavar="SYSTEM",
     help="Units shown: si, si-mm (lengths in mm, inertia in kg mm^2) or inch-pound "
          "(in, lb, lbf, ft lbf, ft/s). Display only: JSON stays SI.")]
-SpecFormat = Annotated[Optional[str], typer.Option(
+SpecFormat = Annotated[str | None, typer.Option(
     "--format", metavar="FORMAT",
     help="table, csv, json, markdown, svg or pdf (svg and pdf need --output and the plot "
          "extra; default: table, or from the --output suffix).")]

@@ -20,8 +20,18 @@ from .cautions import cautions_for
 from .model import Column, Item, Report, Table, _plain
 from .units import SYSTEMS, display_unit, to_display
 
-__all__ = ["SheetRow", "SpecSheet", "spec_sheet", "sheet_report", "to_csv", "to_json",
-           "VALUE_DIGITS", "BAND_DIGITS", "CSV_HEADER", "SECTION_TITLES"]
+__all__ = [
+    "BAND_DIGITS",
+    "CSV_HEADER",
+    "SECTION_TITLES",
+    "VALUE_DIGITS",
+    "SheetRow",
+    "SpecSheet",
+    "sheet_report",
+    "spec_sheet",
+    "to_csv",
+    "to_json",
+]
 
 #: Significant digits of a shown value (a drawing's figure: more than any tolerance needs).
 VALUE_DIGITS = 7
@@ -87,9 +97,32 @@ class SpecSheet:
         raise KeyError(key)
 
 
-def _tolerance_text(tol) -> str:
-    return f"{tol.path} +/- {tol.value * 100:g} %" if tol.relative else \
-        f"{tol.path} +/- {tol.value:g} (SI)"
+# A toleranced input's kind (swingcalc.quantity) -> its display kind here; kinds not
+# listed are shown in SI with the kind named.
+_INPUT_KINDS = {"length": "length", "mass": "mass", "density": "density",
+                "temperature": "temperature", "angle": "angle", "acceleration": "acceleration",
+                "inertia": "inertia", "time": "time", "fraction": "fraction"}
+
+
+def _tolerance_texts(design, system: str) -> tuple:
+    """Each toleranced input and its +- half-width in the display units (a relative
+    tolerance also as the percentage the file gave)."""
+    from ..tolerance import inputs
+
+    out = []
+    for tol, inp in zip(design.tolerances, inputs(design)):
+        kind = _INPUT_KINDS.get(inp.kind)
+        if kind is None:
+            half = f"{_number(inp.half_width, BAND_DIGITS)} (SI {inp.kind})"
+        else:
+            u = display_unit(kind, system)
+            half = _number(to_display(inp.half_width, kind, system, difference=True),
+                           BAND_DIGITS)
+            half = f"{half} {u.unit}".rstrip()
+        if tol.relative:
+            half += f" ({tol.value * 100:g} %)"
+        out.append(f"{tol.path} +/- {half}")
+    return tuple(out)
 
 
 def spec_sheet(design, system: str = "si") -> SpecSheet:
@@ -119,11 +152,11 @@ def spec_sheet(design, system: str = "si") -> SpecSheet:
         out.append(SheetRow(r.key, r.section, r.label, r.value, r.kind, u.unit,
                             _number(to_display(r.value, r.kind, system), VALUE_DIGITS),
                             rss, worst, rss_text, worst_text))
-    notes = [f"Units: {system} (display only: the JSON output and the library keep SI). "
-             f"Values to {VALUE_DIGITS} significant digits, bands to {BAND_DIGITS}.",
-             "Small-angle error is (T0 - T)/T: negative, the linear model is short. Two beats "
-             "per period. Loads are peaks over one conservative swing at each working "
-             "amplitude."]
+    notes = [(f"Units: {system} (display only: the JSON output and the library keep SI). "
+              f"Values to {VALUE_DIGITS} significant digits, bands to {BAND_DIGITS}."),
+             ("Small-angle error is (T0 - T)/T: negative, the linear model is short. Two "
+              "beats per period. Loads are peaks over one conservative swing at each working "
+              "amplitude.")]
     if design.context == "clock":
         notes.append("Rates are positive when the clock gains.")
     if design.tolerances:
@@ -138,7 +171,8 @@ def spec_sheet(design, system: str = "si") -> SpecSheet:
                      context=design.context, system=system, rows=tuple(out),
                      notes=tuple(notes),
                      cautions=tuple(cautions_for(design.context, loads=True)),
-                     tolerances=tuple(_tolerance_text(t) for t in design.tolerances))
+                     tolerances=_tolerance_texts(design, system) if design.tolerances
+                     else ())
 
 
 def sheet_report(sheet: SpecSheet) -> Report:

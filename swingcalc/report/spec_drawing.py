@@ -17,7 +17,7 @@ import textwrap
 from ..errors import InvalidInput
 from .spec import SECTION_TITLES, SpecSheet
 
-__all__ = ["VECTOR_FORMATS", "require_matplotlib", "render_vector", "RC"]
+__all__ = ["RC", "VECTOR_FORMATS", "render_vector", "require_matplotlib"]
 
 VECTOR_FORMATS = ("svg", "pdf")
 

@@ -20,9 +20,20 @@ from dataclasses import dataclass
 from ..constants import STANDARD_GRAVITY
 from ..errors import InvalidInput
 
-__all__ = ["SYSTEMS", "KINDS", "INCH_M", "FOOT_M", "POUND_KG", "POUND_FORCE_N",
-           "FOOT_POUND_FORCE_J", "DisplayUnit", "display_unit", "unit_system", "to_display",
-           "from_display"]
+__all__ = [
+    "FOOT_M",
+    "FOOT_POUND_FORCE_J",
+    "INCH_M",
+    "KINDS",
+    "POUND_FORCE_N",
+    "POUND_KG",
+    "SYSTEMS",
+    "DisplayUnit",
+    "display_unit",
+    "from_display",
+    "to_display",
+    "unit_system",
+]
 
 #: Unit systems: SI; SI with lengths in millimetres (as drawings are dimensioned);
 #: inch-pound (US customary).
