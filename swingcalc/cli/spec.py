@@ -92,10 +92,8 @@ def _print(sheet) -> None:
         cells = ("  " + r.label, r.shown, r.unit, r.rss_shown, r.worst_shown)
         table.add_row(*cells[:5 if banded else 3])
     console.print(table)
-    for n in sheet.notes:
+    for n in sheet.display_notes():
         console.print(Text(n, style="dim"))
-    if sheet.tolerances:
-        console.print(Text("Tolerances: " + "; ".join(sheet.tolerances) + ".", style="dim"))
     console.print()
     grid = Table(title="CAUTION", title_justify="left", title_style="bold red", box=None,
                  show_header=False, pad_edge=False, padding=(0, 1, 0, 0))

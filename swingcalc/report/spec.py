@@ -86,9 +86,18 @@ class SpecSheet:
     context: str
     system: str
     rows: tuple
-    notes: tuple
+    notes: tuple                # the same in every unit system
     cautions: tuple
-    tolerances: tuple = ()      # the design's [tolerances] as (path, text) for the foot
+    tolerances: tuple = ()      # each toleranced input and its band, in the display units
+    tolerance_inputs: tuple = ()    # the same in SI (ToleranceInput.to_dict()), for JSON
+    units_note: str = ""
+
+    def display_notes(self) -> list:
+        """The notes as the text formats show them: the units first, the tolerances last."""
+        out = [self.units_note, *self.notes]
+        if self.tolerances:
+            out.append("Tolerances: " + "; ".join(self.tolerances) + ".")
+        return out
 
     def row(self, key: str) -> SheetRow:
         for r in self.rows:
@@ -102,6 +111,14 @@ class SpecSheet:
 _INPUT_KINDS = {"length": "length", "mass": "mass", "density": "density",
                 "temperature": "temperature", "angle": "angle", "acceleration": "acceleration",
                 "inertia": "inertia", "time": "time", "fraction": "fraction"}
+
+
+def _tolerance_inputs(design) -> tuple:
+    if not design.tolerances:
+        return ()
+    from ..tolerance import inputs
+
+    return tuple(i.to_dict() for i in inputs(design))
 
 
 def _tolerance_texts(design, system: str) -> tuple:
@@ -152,9 +169,10 @@ def spec_sheet(design, system: str = "si") -> SpecSheet:
         out.append(SheetRow(r.key, r.section, r.label, r.value, r.kind, u.unit,
                             _number(to_display(r.value, r.kind, system), VALUE_DIGITS),
                             rss, worst, rss_text, worst_text))
-    notes = [(f"Units: {system} (display only: the JSON output and the library keep SI). "
-              f"Values to {VALUE_DIGITS} significant digits, bands to {BAND_DIGITS}."),
-             ("Small-angle error is (T0 - T)/T: negative, the linear model is short. Two "
+    units_note = (f"Units: {system} (display only: the JSON output and the library keep "
+                  f"SI). Values to {VALUE_DIGITS} significant digits, bands to "
+                  f"{BAND_DIGITS}.")
+    notes = [("Small-angle error is (T0 - T)/T: negative, the linear model is short. Two "
               "beats per period. Loads are peaks over one conservative swing at each working "
               "amplitude.")]
     if design.context == "clock":
@@ -172,7 +190,8 @@ def spec_sheet(design, system: str = "si") -> SpecSheet:
                      notes=tuple(notes),
                      cautions=tuple(cautions_for(design.context, loads=True)),
                      tolerances=_tolerance_texts(design, system) if design.tolerances
-                     else ())
+                     else (), tolerance_inputs=_tolerance_inputs(design),
+                     units_note=units_note)
 
 
 def sheet_report(sheet: SpecSheet) -> Report:
@@ -190,9 +209,7 @@ def sheet_report(sheet: SpecSheet) -> Report:
         body.append((head, r.label, r.shown, r.unit, r.rss_shown, r.worst_shown))
     inputs = [Item(r.key, r.label, r.shown) for r in sheet.rows if r.section == "design"]
     inputs.append(Item("units", "units", sheet.system))
-    notes = list(sheet.notes)
-    if sheet.tolerances:
-        notes.append("Tolerances: " + "; ".join(sheet.tolerances) + ".")
+    notes = sheet.display_notes()
     return Report("spec", sheet.title, inputs, [],
                   [Table("spec", "Spec sheet", cols, tuple(body))], notes=notes,
                   cautions=list(sheet.cautions))
@@ -208,7 +225,7 @@ def to_csv(sheet: SpecSheet) -> str:
         w.writerow((r.section, r.label, r.shown, r.unit, r.rss_shown, r.worst_shown, r.key))
     for t in sheet.tolerances:
         w.writerow(("tolerances", t, "", "", "", "", ""))
-    for n in sheet.notes:
+    for n in [sheet.units_note, *sheet.notes]:
         w.writerow(("notes", n, "", "", "", "", ""))
     for c in sheet.cautions:
         w.writerow(("cautions", c, "", "", "", "", ""))
@@ -221,6 +238,7 @@ def to_json(sheet: SpecSheet) -> str:
     from .. import __version__
 
     d = {"swingcalc_version": __version__, "command": "spec", "title": sheet.title,
+         "units": "SI, the unit in each key (angles in rad, relative values as fractions)",
          "design": {"name": sheet.name, "revision": sheet.revision, "date": sheet.date,
                     "context": sheet.context},
          "values": {r.key: _plain(r.value) for r in sheet.rows},
@@ -228,6 +246,6 @@ def to_json(sheet: SpecSheet) -> str:
                    for r in sheet.rows if r.rss is not None},
          "rows": [{"key": r.key, "section": r.section, "label": r.label, "kind": r.kind}
                   for r in sheet.rows],
-         "tolerances": list(sheet.tolerances),
+         "tolerances": list(sheet.tolerance_inputs),
          "notes": list(sheet.notes), "cautions": list(sheet.cautions)}
     return json.dumps(d, indent=2, allow_nan=False, ensure_ascii=False) + "\n"

@@ -67,9 +67,7 @@ def _columns(sheet: SpecSheet) -> dict:
 
 
 def _lines(sheet: SpecSheet, width_chars: int) -> tuple[list, list]:
-    notes = list(sheet.notes)
-    if sheet.tolerances:
-        notes.append("Tolerances: " + "; ".join(sheet.tolerances) + ".")
+    notes = sheet.display_notes()
     wrap = textwrap.TextWrapper(width=width_chars, subsequent_indent="  ")
     note_lines = [line for n in notes for line in wrap.wrap(n)]
     caution_lines = [line for c in sheet.cautions for line in wrap.wrap("- " + c)]
