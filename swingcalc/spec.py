@@ -279,7 +279,8 @@ def _clock_rows(design, pend) -> list:
     adj = rating_adjustment(pend, parts, a, pitch)
     moved = " and ".join(parts)
     rows.append(SpecRow("rating_rate_s_per_day_per_m", "clock",
-                        f"rate change as the {moved} move down",
+                        f"rate change as the {moved} move{'s' if len(parts) == 1 else ''} "
+                        "down",
                         adj["rate_s_per_day_per_mm"] * 1e3, "rate_per_length"))
     if adj["rate_s_per_day_per_turn"] is not None:
         rows.append(SpecRow("rating_rate_s_per_day_per_turn", "clock",

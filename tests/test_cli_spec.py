@@ -119,6 +119,16 @@ def test_units_change_the_display_not_the_json():
     assert a == b
 
 
+def test_plain_text_file_has_one_line_per_quantity(tmp_path):
+    target = tmp_path / "sheet.txt"
+    run_ok("spec", example("workshop_clock.toml"), "-o", target)
+    lines = target.read_text().splitlines()
+    assert lines[0] == "Spec sheet: Workshop regulator, seconds pendulum, rev. A"
+    mass = next(line for line in lines if line.startswith("  mass "))
+    assert mass.split()[-2:] == ["1.2", "kg"]
+    assert "CAUTION" in lines and any("bob moves down" in line for line in lines)
+
+
 def test_output_file_written_once_then_refused_without_force(tmp_path):
     target = tmp_path / "sheet.csv"
     _, err = run_ok("spec", example("gate_arm.toml"), "--output", target)

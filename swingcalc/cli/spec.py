@@ -28,7 +28,7 @@ SpecFormat = Annotated[str | None, typer.Option(
 
 
 def _write(sheet, kind: str, path, force: bool) -> None:
-    from ..report.spec import sheet_report, to_csv, to_json
+    from ..report.spec import sheet_report, to_csv, to_json, to_text
 
     if kind in VECTOR_SUFFIXES:
         from ..report.spec_drawing import render_vector
@@ -46,9 +46,7 @@ def _write(sheet, kind: str, path, force: bool) -> None:
         _print(sheet)
         return
     else:
-        from ..report.formats import to_text
-
-        data = to_text(sheet_report(sheet))
+        data = to_text(sheet)
     if path is None:
         sys.stdout.write(data)
         return

@@ -31,6 +31,7 @@ __all__ = [
     "spec_sheet",
     "to_csv",
     "to_json",
+    "to_text",
 ]
 
 #: Significant digits of a shown value (a drawing's figure: more than any tolerance needs).
@@ -213,6 +214,42 @@ def sheet_report(sheet: SpecSheet) -> Report:
     return Report("spec", sheet.title, inputs, [],
                   [Table("spec", "Spec sheet", cols, tuple(body))], notes=notes,
                   cautions=list(sheet.cautions))
+
+
+def to_text(sheet: SpecSheet) -> str:
+    """Plain aligned text (for a file or a pipe): the title block, one line per quantity
+    under its section, the notes and the cautions."""
+    import textwrap
+
+    body = [r for r in sheet.rows if r.section != "design"]
+    banded = any(r.rss_shown for r in body)
+    heads = ("quantity", "value", "unit") + (("+/- RSS", "+/- worst") if banded else ())
+    cells = [("  " + r.label, r.shown, r.unit) + ((r.rss_shown, r.worst_shown) if banded
+                                                  else ()) for r in body]
+    widths = [max(len(c[j]) for c in [heads, *cells]) for j in range(len(heads))]
+
+    def line(c):
+        out = [c[0].ljust(widths[0]), c[1].rjust(widths[1]), c[2].ljust(widths[2])]
+        out += [x.rjust(w) for x, w in zip(c[3:], widths[3:])]
+        return "  ".join(out).rstrip()
+
+    head = [r for r in sheet.rows if r.section == "design"]
+    lines = [sheet.title, "=" * len(sheet.title),
+             "  ".join(f"{r.label} {r.shown}" for r in head[1:]) + f"  units {sheet.system}",
+             "", line(heads), "  ".join("-" * w for w in widths)]
+    last = None
+    for r, c in zip(body, cells):
+        if r.section != last:
+            last = r.section
+            lines.append(SECTION_TITLES.get(r.section, r.section))
+        lines.append(line(c))
+    lines.append("")
+    for n in sheet.display_notes():
+        lines += textwrap.wrap(n, 88, subsequent_indent="  ")
+    lines += ["", "CAUTION"]
+    for c in sheet.cautions:
+        lines += textwrap.wrap(c, 88, initial_indent="  - ", subsequent_indent="    ")
+    return "\n".join(lines) + "\n"
 
 
 def to_csv(sheet: SpecSheet) -> str:

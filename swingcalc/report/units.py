@@ -90,7 +90,8 @@ KINDS = {
     "rate_per_angle": _same("s/day per deg", 1.0 / _DEG),
     "rate_per_temperature": (DisplayUnit("s/day per K"), DisplayUnit("s/day per K"),
                              DisplayUnit("s/day per degF", 1.0 / 1.8)),
-    "rate_per_length": (DisplayUnit("s/day per m"), DisplayUnit("s/day per mm", 1e-3),
+    # The rating figure is per mm in both SI systems, as clockmakers quote it.
+    "rate_per_length": (DisplayUnit("s/day per mm", 1e-3), DisplayUnit("s/day per mm", 1e-3),
                         DisplayUnit("s/day per in", INCH_M)),
     "rate_per_turn": _same("s/day per turn"),
 }
