@@ -6,12 +6,20 @@ import math
 
 import numpy as np
 import pytest
+from scipy.stats import truncnorm
 
 from swingcalc import STANDARD_GRAVITY, examples
 from swingcalc.designfile import Tolerance, parse_design, point_design
 from swingcalc.errors import InvalidInput
 from swingcalc.sizing import period_at, position_for_period
-from swingcalc.tolerance import Band, ToleranceInput, inputs, linear_bands, perturbed
+from swingcalc.tolerance import (
+    Band,
+    ToleranceInput,
+    analyse,
+    inputs,
+    linear_bands,
+    perturbed,
+)
 
 CLOCK = examples.text()
 
@@ -236,3 +244,177 @@ def test_linear_bands_drop_keys_that_are_not_finite_and_are_empty_without_tolera
     assert linear_bands(_point(), evaluate, ()) == {}
     no_tol = parse_design(POINT.split("[tolerances]")[0], "p.toml")
     assert linear_bands(no_tol, evaluate) == {}
+
+
+# ------------------------------------------------------------------ analyse
+
+# Standard deviation of a normal distribution truncated at +-3 sigma, in sigma
+# (scipy.stats.truncnorm; about 0.98658): the "normal" inputs are cut at their band ends.
+TRUNCATED_SD = float(truncnorm(-3.0, 3.0).std())
+
+
+def _small_point(tols: str, amplitude: str = "0 deg", mass: str = "1 kg"):
+    text = (POINT.split("[tolerances]")[0].replace('amplitude = "0 deg"',
+                                                   f'amplitude = "{amplitude}"')
+            .replace('bob_mass = "1 kg"', f'bob_mass = "{mass}"'))
+    return parse_design(text + "[tolerances]\n" + tols, "point.toml")
+
+
+def test_monte_carlo_std_converges_to_rss_over_three_for_small_tolerances():
+    """Normal inputs, band = +-3 sigma: for a linear response the output's sigma is
+    RSS/3 (GUM propagation of standard uncertainties), times the truncated-normal factor
+    (scipy.stats.truncnorm at +-3) since samples outside a band are rejected. L +- 0.01 mm
+    and g +- 20 ppm keep the response linear to ~1e-5 relative. Tolerance: the standard
+    error of a standard deviation estimate is ~sigma/sqrt(2N) = 0.22 % at N = 1e5; four
+    of them, 0.9 %."""
+    d = _small_point('"pendulum.length" = "0.01 mm"\n"environment.gravity" = "20 ppm"\n')
+    r = analyse(d, outputs=["period_s"], samples=100_000, seed=7)
+    band = r.output("period_s")
+    t0 = 2 * math.pi * math.sqrt(1.0 / STANDARD_GRAVITY)
+    assert band.rss == pytest.approx(0.5 * t0 * math.hypot(1e-5, 2e-5), rel=1e-6)
+    assert band.mc_std == pytest.approx(TRUNCATED_SD * band.rss / 3.0, rel=0.009)
+    assert band.mc_mean == pytest.approx(t0, abs=4 * band.rss / 3 / math.sqrt(1e5))
+    # the +-3 sigma quantiles of a truncated normal are just inside the +-RSS band
+    assert band.nominal - band.rss < band.mc_low < band.mc_high < band.nominal + band.rss
+    assert band.worst_linear == pytest.approx(0.5 * t0 * 3e-5, rel=1e-6)
+
+
+def test_uniform_std_of_one_linear_input_is_its_half_width_over_root_three():
+    """Uniform on [-t, t] has sigma = t/sqrt(3) (any statistics text). Tolerance: the
+    standard error of the std of a uniform sample is sigma sqrt((9/5 - 1)/(4N)) = 0.14 %
+    at N = 1e5; four of them, 0.6 %."""
+    d = _small_point('"pendulum.length" = "0.01 mm"\n')
+    band = analyse(d, outputs=["period_s"], distribution="uniform", seed=3).output("period_s")
+    assert band.mc_std == pytest.approx(band.rss / math.sqrt(3.0), rel=0.006)
+    assert band.mc_min >= band.worst_low and band.mc_max <= band.worst_high
+    assert band.mc_max - band.mc_min == pytest.approx(2 * band.rss, rel=1e-3)
+
+
+def test_pivot_load_band_of_a_bob_mass_tolerance():
+    """Point bob on a light rod: the peak pivot load is m g (3 - 2 cos A) at the bottom
+    (energy conservation, textbook), linear in m: a +-2 % mass band gives
+    c = 0.02 m g (3 - 2 cos A) exactly (tolerance a few ulp of the differences)."""
+    d = _small_point('"pendulum.bob_mass" = "2 %"\n', amplitude="40 deg", mass="3 kg")
+    band = analyse(d, outputs=["reaction_N"], samples=1000).output("reaction_N")
+    expected = 3.0 * STANDARD_GRAVITY * (3 - 2 * math.cos(math.radians(40)))
+    assert band.nominal == pytest.approx(expected, rel=1e-13)
+    assert band.rss == pytest.approx(0.02 * expected, rel=1e-11)
+    assert band.worst_low == pytest.approx(0.98 * expected, rel=1e-12)
+    assert band.corner_high == pytest.approx(1.02 * expected, rel=1e-12)
+
+
+def test_worst_case_brackets_every_sample_and_exactly_evaluated_points():
+    """On the clock (four inputs, curved response): the worst case contains every Monte
+    Carlo sample, and the period at 12 random points of the tolerance box evaluated
+    exactly by re-reading the design (an independent route: the surface is not used)."""
+    d = _clock()
+    r = analyse(d, outputs=["period_s", "rate_s_per_day"], samples=100_000, seed=11)
+    assert r.warnings == ()
+    band = r.output("period_s")
+    assert band.worst_low <= band.mc_min <= band.mc_max <= band.worst_high
+    rng = np.random.default_rng(5)
+    ins = r.inputs
+    for _ in range(12):
+        u = rng.choice([-1.0, 1.0], size=len(ins)) * rng.uniform(0.5, 1.0, size=len(ins))
+        p = perturbed(d, {i.path: i.nominal + x * i.half_width for i, x in zip(ins, u)})
+        t = period_at(p.pendulum, p.amplitudes_rad[0])
+        assert band.worst_low <= t <= band.worst_high
+    # the rate falls as the period grows: its sign corners are the period's, swapped
+    rate = r.output("rate_s_per_day")
+    assert rate.corner_high == pytest.approx(86400 * (2.0 / band.corner_low - 1), rel=1e-12)
+    assert rate.corner_low == pytest.approx(86400 * (2.0 / band.corner_high - 1), rel=1e-12)
+
+
+def test_surrogate_is_checked_and_a_poor_fit_is_warned_of():
+    """A smooth band (the clock) fits to far under 1 % of the RSS band; an amplitude band
+    that is clipped at zero (1 deg +- 5 deg) has a kink the quadratic surface cannot
+    follow: the period is flat for amplitudes clipped to 0, so the fit is off by tens of
+    per cent of the band there (T ~ T0 (1 + A^2/16), textbook series), and it says so."""
+    smooth = analyse(_clock(), outputs=["period_s"], samples=1000).output("period_s")
+    assert 0.0 < smooth.surrogate_error < 1e-3 * smooth.rss
+    kink = analyse(_small_point('"swing.amplitude" = "5 deg"\n', amplitude="1 deg"),
+                   outputs=["period_s"], samples=1000)
+    band = kink.output("period_s")
+    assert band.surrogate_error > 0.01 * band.rss
+    assert any("response surface" in w for w in kink.warnings)
+
+
+def test_ranking_is_the_same_under_different_seeds():
+    """Shares from the Monte Carlo samples (squared input-output correlation) rank the
+    inputs as the first-order shares c_i^2 / sum c^2 do, whatever the seed; an input the
+    output does not depend on (the bob mass of a point pendulum: T = 2 pi sqrt(L/g),
+    textbook) comes last with share 0. By hand, with T ~ T0 (1 + A^2/16) (textbook
+    series): amplitude 10 +- 1 deg gives c/T ~ (A/8) dA = 3.8e-4, length 1 m +- 0.5 mm
+    2.5e-4, gravity +- 0.01 % 5e-5."""
+    d = _small_point('"pendulum.bob_mass" = "5 %"\n"pendulum.length" = "0.5 mm"\n'
+                     '"environment.gravity" = "0.01 %"\n"swing.amplitude" = "1 deg"\n',
+                     amplitude="10 deg")
+    rankings = []
+    for seed in (1, 2, 3):
+        band = analyse(d, outputs=["period_s"], samples=20_000, seed=seed).output("period_s")
+        by_share = [c.path for c in band.contributions]
+        by_mc = [c.path for c in sorted(band.contributions[:-1], key=lambda c: -c.mc_share)]
+        assert by_mc == by_share[:-1]
+        rankings.append(by_share)
+        last = band.contributions[-1]
+        assert last.path == "pendulum.bob_mass" and last.value == 0.0 and last.share == 0.0
+        assert sum(c.share for c in band.contributions) == pytest.approx(1.0, rel=1e-12)
+    assert rankings[0] == rankings[1] == rankings[2]
+    assert rankings[0][:3] == ["swing.amplitude", "pendulum.length", "environment.gravity"]
+
+
+def test_same_seed_same_numbers_other_seed_other_samples():
+    d = _small_point('"pendulum.length" = "1 mm"\n')
+    a, b = (analyse(d, outputs=["period_s"], samples=2000, seed=4) for _ in range(2))
+    c = analyse(d, outputs=["period_s"], samples=2000, seed=5)
+    assert a == b
+    assert a.output("period_s").mc_mean != c.output("period_s").mc_mean
+
+
+def test_rate_is_against_the_target_period_or_else_the_nominal_period():
+    """rate = 86400 (T_ref / T - 1) s/day (a clock beating T instead of T_ref; common
+    practice, positive when it gains)."""
+    clock = analyse(_clock(), outputs=["rate_s_per_day", "period_s"], samples=1000)
+    t = clock.output("period_s").nominal
+    assert clock.reference == "target period" and clock.reference_period_s == 2.0
+    assert clock.output("rate_s_per_day").nominal == pytest.approx(86400 * (2.0 / t - 1),
+                                                                   rel=1e-12)
+    point = analyse(_small_point('"pendulum.length" = "1 mm"\n'), samples=1000)
+    assert point.reference == "nominal period"
+    assert point.output("rate_s_per_day").nominal == 0.0
+    # first order: d(rate) = -86400 dT / T
+    assert point.output("rate_s_per_day").rss == pytest.approx(
+        86400 * point.output("period_s").rss / point.reference_period_s, rel=1e-6)
+
+
+def test_analyse_rejects_bad_requests_in_one_line():
+    d = _clock()
+    no_tol = parse_design(CLOCK.split("[tolerances]")[0], "c.toml")
+    cases = [(lambda: analyse(no_tol), "no tolerances"),
+             (lambda: analyse(d, outputs=["period"]), "did you mean 'period_s'"),
+             (lambda: analyse(d, outputs=["bob centre.felt"]), "bob centre.felt_g"),
+             (lambda: analyse(d, samples=10), "samples"),
+             (lambda: analyse(d, samples=1.5e5), "samples"),
+             (lambda: analyse(d, seed=-1), "seed"),
+             (lambda: analyse(d, distribution="gauss"), "normal or uniform")]
+    for call, text in cases:
+        with pytest.raises(InvalidInput) as err:
+            call()
+        assert text in str(err.value) and "\n" not in str(err.value)
+
+
+def test_perturbed_follows_a_point_bob_replaced_after_reading():
+    """As --length and --mass do: the re-read keeps the replaced bob. T = 2 pi sqrt(L/g)
+    at zero amplitude (textbook); tolerance a few ulp."""
+    import dataclasses
+
+    from swingcalc.body import point_bob
+
+    d = _point()
+    parts, susp = point_bob(0.64, 2.0, "rigid")
+    d = dataclasses.replace(d, parts=parts, suspension=susp)
+    assert inputs(d)[0].nominal == 0.64
+    p = perturbed(d, {})
+    assert p.parts[0].position == 0.64 and p.parts[0].mass == 2.0
+    assert period_at(p.pendulum, 0.0) == pytest.approx(
+        2 * math.pi * math.sqrt(0.64 / STANDARD_GRAVITY), rel=4e-16)

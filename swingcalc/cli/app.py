@@ -73,7 +73,8 @@ class _Group(TyperGroup):
 
 app = typer.Typer(
     name=PROG, cls=_Group, pretty_exceptions_enable=False, no_args_is_help=False,
-    add_completion=False, context_settings={"help_option_names": ["-h", "--help"]},
+    add_completion=False, rich_markup_mode=None,
+    context_settings={"help_option_names": ["-h", "--help"]},
     help="Pendulum and swinging-part design calculations: exact period at the real "
          "amplitude, small-angle check, speeds, tensions and energies, with safety cautions. "
          "Run with no command for the bundled example design.")
@@ -330,10 +331,12 @@ def motion(angle: Annotated[str, typer.Option(
 from . import designs as _designs  # noqa: E402 - registers the design commands on the app
 from .simulate import register as _register_simulate  # noqa: E402 - the simulate command
 from .spec import register as _register_spec  # noqa: E402 - the spec command
+from .tolerance import register as _register_tolerance  # noqa: E402 - the tolerance command
 
 _designs.register(app)
 _register_simulate(app)
 _register_spec(app)
+_register_tolerance(app)
 
 
 def main(argv=None) -> None:

@@ -70,7 +70,8 @@ def _tables(t, Table, box, console_width: int):
     for j, (label, unit) in enumerate(heads):
         width = max([len(r[j]) for r in rows] + [len(unit) + 2 if unit else 0,
                                                   len(label) if t.transpose else 6])
-        text = label if t.transpose else textwrap.fill(label, width=max(width, 10))
+        text = label if t.transpose else textwrap.fill(label, width=max(width, 10),
+                                                           break_long_words=False)
         if unit:
             text += f"\n[{unit}]"
         width = max(width, *(len(line) for line in text.splitlines()))
