@@ -107,6 +107,16 @@ class SwingLoads:
     weight_N: float
     warnings: tuple = field(default=())
 
+    @property
+    def least_tension_N(self) -> float:
+        """Least tension over the swing [N] in what holds the body: a flexible
+        suspension's payload end (0 once it goes slack), or the arm (negative:
+        compression). The tension falls with |theta|, so the ends of the swing, which
+        every sampling holds, give it."""
+        if self.payload_tension_N is not None:
+            return max(float(np.min(self.payload_tension_N)), 0.0)
+        return float(np.min(self.arm_tension_N))
+
     def peak(self, quantity: str) -> Peak:
         for p in self.peaks:
             if p.quantity == quantity:

@@ -331,10 +331,12 @@ def motion(angle: Annotated[str, typer.Option(
 from . import designs as _designs  # noqa: E402 - registers the design commands on the app
 from .simulate import register as _register_simulate  # noqa: E402 - the simulate command
 from .plot import register as _register_plot  # noqa: E402 - the plot command
+from .spec import register as _register_spec  # noqa: E402 - the spec command
 from .tolerance import register as _register_tolerance  # noqa: E402 - the tolerance command
 
 _designs.register(app)
 _register_simulate(app)
+_register_spec(app)
 _register_tolerance(app)
 _register_plot(app)
 

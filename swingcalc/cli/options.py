@@ -148,21 +148,30 @@ def output_path(text: str | None, field: str = "--output") -> Path | None:
     return Path(text)
 
 
-def output_format(fmt: str | None, output: Path | None) -> str:
-    """The format to write: --format if given, else from the --output suffix, else table."""
+def output_format(fmt: str | None, output: Path | None, extra: dict | None = None) -> str:
+    """The format to write: --format if given, else from the --output suffix, else table.
+
+    ``extra`` maps further format names a command writes to their file suffix (the spec
+    sheet's ``{"svg": ".svg", "pdf": ".pdf"}``); the other commands take the text formats
+    only."""
+    extra = extra or {}
+    formats = FORMATS + tuple(extra)
+    suffixes = {**_SUFFIX_FORMATS, **{suffix: name for name, suffix in extra.items()}}
     if fmt is not None:
         word = fmt.strip().lower()
         if word == "md":
             word = "markdown"
-        if word not in FORMATS:
-            raise InvalidInput("--format", fmt, ", ".join(FORMATS),
-                               f"unknown format{suggest(word, FORMATS)}")
+        if word not in formats:
+            raise InvalidInput("--format", fmt, ", ".join(formats),
+                               f"unknown format{suggest(word, formats)}")
         return word
     if output is None:
         return "table"
     suffix = output.suffix.lower()
-    if suffix not in _SUFFIX_FORMATS:
+    if suffix not in suffixes:
+        shown = [".csv", ".json", ".md", ".txt", *extra.values()]
+        ends = ", ".join(shown[:-1]) + " or " + shown[-1]
         raise InvalidInput("--output", str(output),
-                           "a file ending in .csv, .json, .md or .txt, or give --format",
+                           f"a file ending in {ends}, or give --format",
                            "cannot tell the format from the file name")
-    return _SUFFIX_FORMATS[suffix]
+    return suffixes[suffix]

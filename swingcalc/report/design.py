@@ -103,7 +103,6 @@ def design_report(design) -> Report:
     for a in design.amplitudes_rad:
         loads = swing_loads(pend, a, points=points, samples=3)
         t = period_at(pend, a)
-        tension = loads.payload_tension_N if flexible else loads.arm_tension_N
         zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
         row = [_deg_value(a), a, t, t / pend.small_angle_period_s,
                small_angle_period_error(a), 2.0 * SECONDS_PER_HOUR / t]
@@ -113,7 +112,7 @@ def design_report(design) -> Report:
             row.append(SECONDS_PER_DAY * (design.target_period_s / t - 1.0))
         row += [loads.peak("angular_speed_rad_s").value, loads.peak("reaction_N").value,
                 loads.peak("reaction_N").value / loads.weight_N,
-                max(float(np.min(tension)), 0.0) if flexible else float(np.min(tension)),
+                loads.least_tension_N,
                 loads.energy_J, loads.separatrix_margin,
                 None if zero is None else zero * _DEG, zero, harmonic_ratio(a, 3)]
         for name in points:
