@@ -422,7 +422,7 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
             A = tables.amp_of(E)
             ok_assumptions = False
             success = False
-            message = (f"stopped after {k} beats at amplitude {A:.6g} rad: static friction "
+            message = (f"stopped after {k} beats at amplitude {math.degrees(A):.6g} deg: static friction "
                        "can hold the body at its turning point (stick-slip); the averaged "
                        "model cannot follow it further: use simulate")
             break
@@ -433,7 +433,7 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
             # the beat would lose most of its energy: the body stops within it (friction)
             ok_assumptions = False
             success = False
-            message = (f"stopped after {k} beats at amplitude {A:.6g} rad: the body would "
+            message = (f"stopped after {k} beats at amplitude {math.degrees(A):.6g} deg: the body would "
                        "lose most of its energy in the next beat (stick-slip or heavy "
                        "damping), so this amplitude is only roughly where it stops: use "
                        "simulate for the stop")
@@ -441,7 +441,7 @@ def averaged(model: SwingModel, amplitude, *, beats=None, cycles=None, duration=
         if L1 * q_limit > math.pi * E and ok_assumptions:
             ok_assumptions = False
             warnings.append(f"beat {k + 1}: Q = {math.pi * E / L1:.4g} below {q_limit:g} at "
-                            f"amplitude {A:.6g} rad: the averaged model is not accurate "
+                            f"amplitude {math.degrees(A):.6g} deg: the averaged model is not accurate "
                             "there; use simulate")
         if E_new <= 0.0:
             e_mean.append(Em if Em > 0.0 else 0.0)

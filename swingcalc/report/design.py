@@ -213,31 +213,33 @@ def body_report(design) -> Report:
              pend.vacuum_small_angle_period_s, "s", fmt=".8g"),
         Item("small_angle_period_s", "small-angle period here", pend.small_angle_period_s, "s",
              fmt=".8g")]
+    clock = design.context == "clock"
     if design.environment.air:
-        summary += [
-            Item("buoyancy_period_shift_rel", "buoyancy: period shift",
-                 pend.buoyancy_period_shift_rel, "ppm", 1e6, ".4g"),
-            Item("buoyancy_rate_s_per_day", "buoyancy: rate change",
-                 pend.buoyancy_rate_s_per_day, "s/day", fmt=".4g"),
-            Item("added_mass_period_shift_rel", "air carried along: period shift",
-                 pend.added_mass_period_shift_rel, "ppm", 1e6, ".4g"),
-            Item("added_mass_rate_s_per_day", "air carried along: rate change",
-                 pend.added_mass_rate_s_per_day, "s/day", fmt=".4g"),
-            Item("drag_coefficient_N_m_s2", "quadratic drag: torque / omega^2",
-                 pend.air.drag_coefficient_N_m_s2, "N m s^2", fmt=".4g")]
+        summary.append(Item("buoyancy_period_shift_rel", "buoyancy: period shift",
+                            pend.buoyancy_period_shift_rel, "ppm", 1e6, ".4g"))
+        if clock:
+            summary.append(Item("buoyancy_rate_s_per_day", "buoyancy: rate change",
+                                pend.buoyancy_rate_s_per_day, "s/day", fmt=".4g"))
+        summary.append(Item("added_mass_period_shift_rel", "air carried along: period shift",
+                            pend.added_mass_period_shift_rel, "ppm", 1e6, ".4g"))
+        if clock:
+            summary.append(Item("added_mass_rate_s_per_day", "air carried along: rate change",
+                                pend.added_mass_rate_s_per_day, "s/day", fmt=".4g"))
+        summary.append(Item("drag_coefficient_N_m_s2", "quadratic drag: torque / omega^2",
+                            pend.air.drag_coefficient_N_m_s2, "N m s^2", fmt=".4g"))
     th = thermal_rate(pend)
-    summary += [Item("thermal_rate_s_per_day_per_K",
-                     "rate change with temperature (expansion; air density held)",
-                     th.rate_s_per_day_per_K, "s/day/K", fmt=".4g"),
-                Item("plain_thermal_rate_s_per_day_per_K",
-                     "the same, all of the arm's material", th.plain_rate_s_per_day_per_K,
-                     "s/day/K", fmt=".4g")]
-    if th.compensation is not None and any(
+    summary += _thermal_items(th, clock)
+    if clock:
+        summary.append(Item("plain_thermal_rate_s_per_day_per_K",
+                            "the same, all of the arm's material",
+                            th.plain_rate_s_per_day_per_K, "s/day/K", fmt=".4g"))
+    if clock and th.compensation is not None and any(
             p.expansion_per_K != b.arm_expansion_per_K for p in b.parts if p.mass_kg > 0):
         summary.append(Item("thermal_compensation_rel", "temperature compensation achieved",
                             th.compensation, "%", 100.0, ".4g"))
-    notes = ["Rate changes are positive when the clock gains. A part grows about its mount "
-             "point, which moves with the arm's expansion."]
+    notes = ["A part grows about its mount point, which moves with the arm's expansion."]
+    if clock:
+        notes.insert(0, "Rate changes are positive when the clock gains.")
     if b.suspension.flexible:
         notes.append(_FLEXIBLE_NOTE)
     table = Table("parts", "Parts (the suspension line last, if flexible)", cols, rows)
@@ -403,10 +405,13 @@ def tune_report(design, target: float, amplitude: float, part: str | None,
         summary = [Item("parts", "moved", ", ".join(sol.parts)),
                    Item("position_m", "new suspension length" if at == "length" else
                         f"new position of {sol.parts[0]} (its {at})",
-                        sol.position_m, "mm", 1e3, ".10g"),
-                   Item("centre_m", f"{sol.parts[0]} centre" if at != "length" else
-                        "suspension length at temperature", sol.centre_m, "mm", 1e3, ".10g"),
-                   Item("move_m", "move (positive: away from the pivot)", sol.move_m, "mm",
+                        sol.position_m, "mm", 1e3, ".10g")]
+        if at != "centre" or sol.centre_m != sol.position_m:
+            # the centre at the working temperature, when it is not the line above
+            summary.append(Item("centre_m", f"{sol.parts[0]} centre at temperature"
+                                if at != "length" else "suspension length at temperature",
+                                sol.centre_m, "mm", 1e3, ".10g"))
+        summary += [Item("move_m", "move (positive: away from the pivot)", sol.move_m, "mm",
                         1e3, ".6g"),
                    Item("period_s", "period there, recomputed", sol.period_s, "s", fmt=".13g"),
                    Item("zero_amplitude_position_m", "position for the target at zero amplitude",
@@ -479,16 +484,31 @@ def limit_report(design, quantity: str, limit: float) -> Report:
                   cautions=cautions_for(design.context, loads=True))
 
 
+def _thermal_items(th, clock: bool) -> list[Item]:
+    """The rate change with temperature for a clock (s/day/K); for anything else the
+    period's relative change per kelvin (ppm/K), which is what a tuned damper or a test
+    rig is specified by."""
+    if clock:
+        return [Item("thermal_rate_s_per_day_per_K",
+                     "rate change with temperature (expansion; air density held)",
+                     th.rate_s_per_day_per_K, "s/day/K", fmt=".4g")]
+    return [Item("thermal_period_change_rel_per_K",
+                 "period change with temperature (expansion; air density held)",
+                 -th.rate_s_per_day_per_K / SECONDS_PER_DAY, "ppm/K", 1e6, ".4g")]
+
+
 def sensitivity_report(design, amplitude: float | None = None) -> Report:
     """How the period and rate move with each input, and the rating adjustment."""
     pend = design.pendulum
     a = design.amplitudes_rad[0] if amplitude is None else amplitude
     sens = sensitivities(pend, a)
+    clock = design.context == "clock"
     cols = (Column("input", "input"), Column("value", "value", fmt=".6g"),
             Column("unit", "unit"),
             Column("period_per_unit", "dT/dx", "s per unit", fmt=".5g"),
             Column("relative", "(x/T) dT/dx", "", fmt=".4g"),
-            Column("rate_s_per_day_per_unit", "rate change", "s/day per unit", fmt=".5g"))
+            Column("rate_s_per_day_per_unit", "rate change", "s/day per unit", fmt=".5g",
+                   in_text=clock))
     rows = tuple((s.input, s.value, s.unit, s.period_per_unit, s.relative,
                   s.rate_s_per_day_per_unit) for s in sens)
     summary = [Item("amplitude_rad", "at amplitude", a, "deg", _DEG, fmt=amplitude_text),
@@ -504,13 +524,10 @@ def sensitivity_report(design, amplitude: float | None = None) -> Report:
                                 f"per turn of the nut (pitch "
                                 f"{design.rating.nut_pitch_m * 1e3:g} mm) lowering it",
                                 adj["rate_s_per_day_per_turn"], "s/day", fmt=".5g"))
-    th = thermal_rate(pend)
-    summary.append(Item("thermal_rate_s_per_day_per_K",
-                        "rate change with temperature (expansion; air density held)",
-                        th.rate_s_per_day_per_K, "s/day/K", fmt=".4g"))
+    summary += _thermal_items(thermal_rate(pend), clock)
     table = Table("sensitivities", "Sensitivity of the period to each input", cols, rows)
     return Report("sensitivity", _title("Sensitivities", design), _design_inputs(design),
                   summary, [table],
-                  notes=["Rate changes are positive when the clock gains; 'per unit' is per "
-                         "SI unit of the input (m, kg, m/s^2, rad)."],
+                  notes=[("Rate changes are positive when the clock gains; " if clock else "")
+                         + "'per unit' is per SI unit of the input (m, kg, m/s^2, rad)."],
                   cautions=cautions_for(design.context, loads=True))

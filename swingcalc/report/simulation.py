@@ -47,8 +47,22 @@ def _look(key):
     if key.startswith("lost_"):
         return Column(key, f"lost to {key[5:-2]}", "J", fmt=".4g")
     if key.startswith("supplied_"):
-        return Column(key, f"from {key[9:-2].replace('_', ' ')}", "J", fmt=".4g")
+        return Column(key, f"from {_source(key[9:-2])}", "J", fmt=".4g")
     return Column(key, key, "", fmt=".6g")
+
+
+def _source(name: str) -> str:
+    """A drive's name as shown: the impulse drive delivers a push (energy or impulse)."""
+    return "the push" if name == "impulse" else name.replace("_", " ")
+
+
+def _messages(result) -> tuple[list, list]:
+    """(warnings, notes) of a run: its message once, as a warning when the run failed."""
+    warnings = list(result.warnings)
+    if not result.success and result.message not in warnings:
+        warnings.append(result.message)
+    notes = [] if result.message in warnings else [result.message]
+    return warnings, notes
 
 
 def _rows(columns: dict, index) -> tuple:
@@ -77,7 +91,8 @@ def _table(name, title, columns: dict, index) -> Table:
 
 
 def _model_items(model) -> list:
-    items = [Item("inertia_kg_m2", "inertia about the pivot", model.inertia, "kg m^2", fmt=".6g"),
+    items = [Item("inertia_kg_m2", "inertia about pivot + added air mass",
+                  model.inertia, "kg m^2", fmt=".6g"),
              Item("mass_kg", "mass", model.mass, "kg", fmt=".6g"),
              Item("com_distance_m", "pivot to centre of mass", model.com_distance, "m",
                   fmt=".6g"),
@@ -138,20 +153,29 @@ def simulation_report(result, context: str = "general") -> Report:
                Item("final_amplitude_rad", "last amplitude", s.final_amplitude_rad, **ang),
                Item("first_period_s", "first period", s.first_period_s, "s", fmt=".10g"),
                Item("last_period_s", "last period", s.last_period_s, "s", fmt=".10g"),
-               Item("target_period_s", "target period", s.target_period_s, "s", fmt=".10g"),
-               Item("last_rate_s_per_day", "rate against the target (last cycle)",
-                    s.last_rate_s_per_day, "s/day", fmt=".5g"),
-               Item("q_first", "Q (first cycles)", s.q_first, fmt=".6g"),
-               Item("q_first_amplitude_rad", "  at amplitude", s.q_first_amplitude_rad, **ang),
-               Item("q_last", "Q (last cycles)", s.q_last, fmt=".6g"),
-               Item("q_last_amplitude_rad", "  at amplitude", s.q_last_amplitude_rad, **ang),
-               Item("loss_q_last", "loss Q, last cycle (2 pi E / energy lost)", s.loss_q_last,
-                    fmt=".6g"),
-               Item("log_decrement_first", "log decrement (first)", s.log_decrement_first,
-                    fmt=".6g"),
-               Item("log_decrement_last", "log decrement (last)", s.log_decrement_last,
-                    fmt=".6g"),
-               Item("decay_fraction", "decay to", s.decay_fraction, "%", 100.0, ".4g"),
+               Item("target_period_s", "target period", s.target_period_s, "s", fmt=".10g")]
+    clock = context == "clock"
+    if clock:
+        summary.append(Item("last_rate_s_per_day", "rate against the target (last cycle)",
+                            s.last_rate_s_per_day, "s/day", fmt=".5g"))
+    if result.drives:
+        # a drive feeds energy in: the decrement of the turning points says nothing of
+        # the losses, only the loss Q does
+        summary.append(Item("loss_q_last", "loss Q, last cycle (2 pi E / energy lost)",
+                            s.loss_q_last, fmt=".6g"))
+    else:
+        summary += [
+            Item("q_first", "Q (first cycles)", s.q_first, fmt=".6g"),
+            Item("q_first_amplitude_rad", "  at amplitude", s.q_first_amplitude_rad, **ang),
+            Item("q_last", "Q (last cycles)", s.q_last, fmt=".6g"),
+            Item("q_last_amplitude_rad", "  at amplitude", s.q_last_amplitude_rad, **ang),
+            Item("loss_q_last", "loss Q, last cycle (2 pi E / energy lost)", s.loss_q_last,
+                 fmt=".6g"),
+            Item("log_decrement_first", "log decrement (first)", s.log_decrement_first,
+                 fmt=".6g"),
+            Item("log_decrement_last", "log decrement (last)", s.log_decrement_last,
+                 fmt=".6g")]
+    summary += [Item("decay_fraction", "decay to", s.decay_fraction, "%", 100.0, ".4g"),
                Item("decay_time_s", "  time to decay", s.decay_time_s, "s", fmt=".6g"),
                Item("decay_cycles", "  cycles to decay", s.decay_cycles, fmt=".6g"),
                Item("steady_amplitude_rad", "steady amplitude", s.steady_amplitude_rad, **ang),
@@ -175,28 +199,29 @@ def simulation_report(result, context: str = "general") -> Report:
                Item("energy_final_J", "energy at end", e.final_J, "J", fmt=".8g")]
     summary += [Item(f"dissipated_{k}_J", f"dissipated by {k}", v, "J", fmt=".8g")
                 for k, v in e.dissipated_J.items()]
-    summary += [Item(f"supplied_{k}_J", f"supplied by {k.replace('_', ' ')}", v, "J",
+    summary += [Item(f"supplied_{k}_J", f"supplied by {_source(k)}", v, "J",
                      fmt=".8g") for k, v in e.supplied_J.items()]
     summary.append(Item("energy_closure_rel", "energy budget closure", e.closure_rel,
                         fmt=".3g"))
     inputs = _model_items(result.model) + _drive_items(result.drives) + [
         Item("rtol", "relative tolerance", result.settings.get("rtol"), fmt=".3g")]
-    cols = result.cycles.columns
+    # a rate in s/day means something for a clock; the files keep every column
+    cols = {k: v for k, v in result.cycles.columns.items()
+            if clock or k != "rate_s_per_day"}
     n = len(result.cycles)
     tables = []
     if n:
         title = ("Per cycle" if n <= 2 * SAMPLE_ROWS else
                  f"Per cycle (first and last {SAMPLE_ROWS} of {n})")
         tables.append(_table("cycles", title, cols, _sample_index(n)))
-    warnings = list(result.warnings)
-    if not result.success:
-        warnings.append(result.message)
+    warnings, notes = _messages(result)
     if s.over_the_top:
         warnings.append("the body went over the top: amplitudes are not defined there")
-    notes = [result.message,
-             ("Q is that of the linear oscillator with the measured logarithmic decrement, "
+    notes += [("Q is that of the linear oscillator with the measured logarithmic decrement, "
               "sqrt(4 pi^2 + delta^2) / (2 delta); loss Q is 2 pi E / energy dissipated per "
-              "cycle. The rate is (target / period - 1) x 86400 s/day (positive: gaining).")]
+              "cycle.")]
+    if clock:
+        notes.append("The rate is (target / period - 1) x 86400 s/day (positive: gaining).")
     name = result.model.name
     return Report("simulate", "Damped, driven swing" + (f": {name}" if name else ""),
                   inputs, summary, tables, notes=notes, warnings=warnings,
@@ -259,15 +284,13 @@ def averaged_report(result, context: str = "general") -> Report:
         title = ("Per cycle" if n <= 2 * SAMPLE_ROWS else
                  f"Per cycle (first and last {SAMPLE_ROWS} of {n})")
         tables.append(_table("cycles", title, cols, range(len(idx))))
-    warnings = list(result.warnings)
-    if not result.success:
-        warnings.append(result.message)
-    notes = [result.message,
-             ("Cycle-averaged model: losses over the exact conservative orbit at each beat's "
+    warnings, notes = _messages(result)
+    notes += [("Cycle-averaged model: losses over the exact conservative orbit at each beat's "
               "amplitude, the push's energy per beat, the exact period at that amplitude. "
               "Where the assumptions fail (low Q, forcing near resonance, stick-slip) use the "
               "full integrator (swingcalc simulate without --averaged).")]
-    return Report("simulate", "Cycle-averaged long run", inputs, summary, tables, notes=notes,
+    name = result.model.name
+    return Report("simulate", "Cycle-averaged long run" + (f": {name}" if name else ""), inputs, summary, tables, notes=notes,
                   warnings=warnings, cautions=cautions_for(context, loads=True))
 
 
