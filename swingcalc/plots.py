@@ -36,6 +36,7 @@ __all__ = [
     "period_figure",
     "phase_figure",
     "require_matplotlib",
+    "style",
 ]
 
 #: Plot kinds of :func:`design_figure`.
@@ -99,11 +100,13 @@ def require_matplotlib():
 
 
 @contextmanager
-def _style():
+def style(rc=None):
+    """matplotlib's own defaults, then ``rc`` (default :data:`RC`): a user's matplotlibrc
+    changes nothing we draw. Shared with the spec sheet's vector table."""
     mpl = require_matplotlib()
     import matplotlib.style
 
-    with matplotlib.style.context("default"), mpl.rc_context(RC):
+    with matplotlib.style.context("default"), mpl.rc_context(RC if rc is None else rc):
         yield mpl
 
 
@@ -132,7 +135,7 @@ def figure_bytes(fig, fmt: str) -> bytes:
         raise InvalidInput("format", fmt, " or ".join(FORMATS),
                            f"unknown figure format{suggest(word, FORMATS)}")
     buf = io.BytesIO()
-    with _style():
+    with style():
         fig.savefig(buf, format=word, metadata=_METADATA[word])
     return buf.getvalue()
 
@@ -198,7 +201,7 @@ def period_figure(pendulum, amplitudes=(), *, low: float = 0.0,
     amps = _amplitudes(amplitudes)
     t0 = pendulum.small_angle_period_s
     zoom = amps.size > 0 and 0.0 < float(amps.max()) < math.radians(25.0) and hi > 0.5
-    with _style():
+    with style():
         fig = _figure(12.0 if zoom else 8.0, 5.8)
         ax = fig.add_subplot(1, 2, 1) if zoom else fig.add_subplot(1, 1, 1)
         _period_axes(ax, np.linspace(lo, hi, n), t0, band, amps, "")
@@ -293,7 +296,7 @@ def phase_figure(pendulum, amplitudes=(), *, name: str = "", revision: str = "",
     theta = np.linspace(-math.pi, math.pi, n)
     flexible = pendulum.body.suspension.flexible
     zoom = amps.size > 0 and 0.0 < float(amps.max()) < math.radians(25.0)
-    with _style():
+    with style():
         fig = _figure(11.0 if zoom else 8.4, 6.6)
         ax = fig.add_subplot(1, 2, 1) if zoom else fig.add_subplot(1, 1, 1)
         x = _deg(theta)
@@ -425,7 +428,7 @@ def loads_figure(loads, *, context: str = "general", name: str = "", revision: s
     def held(v):
         return np.where(taut, np.asarray(v, dtype=float), np.nan)
 
-    with _style():
+    with style():
         fig = _figure(8.4, 8.6)
         top = fig.add_subplot(2, 1, 1)
         bottom = fig.add_subplot(2, 1, 2, sharex=top)
@@ -496,7 +499,7 @@ def decay_figure(result, *, name: str = "", revision: str = ""):
         th = np.concatenate(([float(result.history.angle_rad[0])], th))
     pos, neg = th > 0, th < 0
     marks = t.size <= 600
-    with _style():
+    with style():
         fig = _figure(8.4, 5.4)
         ax = fig.add_subplot(1, 1, 1)
         ax.plot(t[pos], _deg(th[pos]), color=_INK, lw=1.2, marker="^" if marks else None,

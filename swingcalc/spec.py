@@ -33,6 +33,7 @@ __all__ = [
     "spec_bands",
     "spec_rows",
     "spec_values",
+    "spec_warnings",
 ]
 
 #: Beats in one period of a clock pendulum: one each way (common practice for clocks:
@@ -145,15 +146,11 @@ def spec_rows(design) -> tuple:
     t0 = pend.small_angle_period_s
     rows += [SpecRow("small_angle_period_s", "period", "period at zero amplitude T0", t0,
                      "time"),
-             SpecRow("small_angle_beats_per_hour", "period", "beats per hour at zero amplitude",
-                     BEATS_PER_PERIOD * SECONDS_PER_HOUR / t0, "beat_rate")]
+             _beat_row("small_angle_", "at zero amplitude", t0, clock)]
     if design.target_period_s is not None:
         rows.append(SpecRow("target_period_s", "period", "target period",
                             design.target_period_s, "time"))
     loads_rows, margin_rows, clock_rows = [], [], []
-    margin_rows.append(SpecRow("separatrix_energy_J", "margins",
-                               "energy to go over the top (at the inverted position)",
-                               2.0 * pend.restoring_moment_N_m, "energy"))
     over_top = None
     for n, a in enumerate(design.amplitudes_rad, start=1):
         at = f"amplitude_{n}."
@@ -161,8 +158,7 @@ def spec_rows(design) -> tuple:
         t = period_at(pend, a)
         rows += [SpecRow(f"{at}amplitude_rad", "period", f"working amplitude {n}", a, "angle"),
                  SpecRow(f"{at}period_s", "period", f"period {tag}", t, "time"),
-                 SpecRow(f"{at}beats_per_hour", "period", f"beats per hour {tag}",
-                         BEATS_PER_PERIOD * SECONDS_PER_HOUR / t, "beat_rate"),
+                 _beat_row(at, tag, t, clock),
                  SpecRow(f"{at}small_angle_period_error_rel", "period",
                          f"small-angle period error (T0 - T)/T {tag}",
                          float(small_angle_period_error(a)), "fraction")]
@@ -194,8 +190,9 @@ def spec_rows(design) -> tuple:
             SpecRow(f"{at}energy_J", "margins", f"swing energy {tag}", loads.energy_J,
                     "energy"),
             SpecRow(f"{at}separatrix_margin", "margins",
-                    f"over-the-top margin 1 - E/E_top {tag}", loads.separatrix_margin,
-                    "ratio"),
+                    f"over-the-top margin 1 - E/E_top {tag}",
+                    1.0 - loads.energy_J / (0.5 * pend.inertia_kg_m2 * over_top ** 2)
+                    if flexible else loads.separatrix_margin, "ratio"),
             SpecRow(f"{at}over_top_speed_ratio", "margins",
                     f"bottom speed to go over the top / working bottom speed {tag}",
                     over_top / peak_omega if peak_omega > 0.0 else math.inf, "ratio")]
@@ -205,13 +202,14 @@ def spec_rows(design) -> tuple:
                 SpecRow(f"{at}slack_margin_rad", "margins",
                         f"slack margin: 90 deg - amplitude {tag} (negative: goes slack)",
                         SLACK_FREE_AMPLITUDE_RAD - a, "angle"),
-                SpecRow(f"{at}slack_angle_rad", "margins", f"goes slack at {tag}",
+                SpecRow(f"{at}slack_angle_rad", "margins", f"slack angle {tag}",
                         "never (taut throughout)" if slack is None else slack,
                         "text" if slack is None else "angle")]
         else:
             comp = loads.compression_angle_rad
             margin_rows.append(SpecRow(
-                f"{at}compression_angle_rad", "margins", f"arm in compression beyond {tag}",
+                f"{at}compression_angle_rad", "margins",
+                f"arm in compression beyond (swinging {_deg_text(a)})",
                 "never" if comp is None else comp, "text" if comp is None else "angle"))
         if clock:
             clock_rows += [
@@ -222,9 +220,15 @@ def spec_rows(design) -> tuple:
                 clock_rows.append(SpecRow(
                     f"{at}rate_vs_target_s_per_day", "clock", f"rate against the target {tag}",
                     SECONDS_PER_DAY * (design.target_period_s / t - 1.0), "rate"))
-    margin_rows.insert(1, SpecRow("over_top_angular_speed_rad_s", "margins",
-                                  "bottom angular speed to go over the top", over_top,
-                                  "angular_speed"))
+    # the bottom speed and energy that carry the body over the top (a flexible suspension
+    # also staying taut there: more than the rigid arm's 2 M g d)
+    margin_rows[:0] = [
+        SpecRow("separatrix_energy_J", "margins", "energy at the bottom to go over the top"
+                + (" taut" if flexible else ""),
+                0.5 * pend.inertia_kg_m2 * over_top ** 2, "energy"),
+        SpecRow("over_top_angular_speed_rad_s", "margins",
+                "bottom angular speed to go over the top" + (" taut" if flexible else ""),
+                over_top, "angular_speed")]
     if not flexible:
         margin_rows.insert(2, SpecRow("slack_margin", "margins", "slack margin",
                                       "rigid: none", "text"))
@@ -234,6 +238,27 @@ def spec_rows(design) -> tuple:
     if clock:
         rows += clock_rows + _clock_rows(design, pend)
     return tuple(rows)
+
+
+def spec_warnings(design) -> tuple:
+    """The load warnings at the working amplitudes (a suspension going slack, an arm in
+    compression), each once, for the sheet's foot."""
+    pend, points = design.pendulum, design.points_dict()
+    out = []
+    for a in design.amplitudes_rad:
+        for w in swing_loads(pend, a, points=points, samples=3).warnings:
+            if w not in out:
+                out.append(w)
+    return tuple(out)
+
+
+def _beat_row(at: str, tag: str, period: float, clock: bool) -> SpecRow:
+    """A clock's beats per hour (two beats per period); for anything else the frequency."""
+    if clock:
+        return SpecRow(f"{at}beats_per_hour", "period", f"beats per hour {tag}",
+                       BEATS_PER_PERIOD * SECONDS_PER_HOUR / period, "beat_rate")
+    return SpecRow(f"{at}frequency_Hz", "period", f"frequency {tag}", 1.0 / period,
+                   "frequency")
 
 
 def _impact_rows(pend, imp) -> list:

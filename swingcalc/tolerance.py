@@ -11,8 +11,9 @@ temperature, a part's mass from its density, the body's inertia) is recomputed.
   nominal design and one at each end of each input's band (central differences):
   contribution c_i = (f(x_i + t_i) - f(x_i - t_i)) / 2, root-sum-square sqrt(sum c_i^2),
   linear worst case sum |c_i|.
-- :func:`analyse`: for the period, the rate and load peaks, the worst case (linear, and the
-  exact value at the two sign corners, whichever is wider), the RSS band, and a seeded,
+- :func:`analyse`: for the period, the rate and load peaks, the worst case (the exact value
+  at the two sign corners; the linear stack-up too where it is wider and the output is
+  not monotone along some band), the RSS band, and a seeded,
   vectorised Monte Carlo run on a full second-order response surface fitted by central
   differences of exact re-reads, checked against exact evaluations of a few samples.
 
@@ -225,6 +226,13 @@ def inputs(design: Design, tolerances=None) -> tuple:
         kind = paths[t.path]
         nominal = _nominal(design, t.path, kind)
         half = abs(nominal) * t.value if t.relative else float(t.value)
+        if t.path == "swing.amplitude" and max(design.amplitudes_rad) + half >= math.pi:
+            # past 180 deg there is no swing (and near it the period grows without bound)
+            raise InvalidInput(f"tolerance on {t.path}", f"{math.degrees(half):.6g} deg",
+                               "a band that keeps every working amplitude below 180 deg",
+                               f"the largest amplitude, "
+                               f"{math.degrees(max(design.amplitudes_rad)):.6g} deg, would "
+                               "reach the inverted position")
         out.append(ToleranceInput(t.path, kind, nominal, half))
     return tuple(out)
 
@@ -251,7 +259,9 @@ def perturbed(design: Design, changes: Mapping[str, float]) -> Design:
     Notes
     -----
     ``swing.amplitude`` sets the working (first) amplitude: every listed amplitude moves
-    by the same amount, each clipped to [0, 180) deg. A density set on a part whose file
+    by the same amount, each clipped to [0, 180) deg. ``suspension.length`` of a flexible
+    suspension moves the parts and named points hung on it by the same amount (a part's
+    own position change adds to that). A density set on a part whose file
     gives a material replaces the material's density and keeps its expansion.
 
     Raises
@@ -276,6 +286,13 @@ def perturbed(design: Design, changes: Mapping[str, float]) -> Design:
                                 bob_mass=_si(bob.mass, "mass"),
                                 suspension="flexible" if design.suspension.flexible
                                 else "rigid")
+    # a flexible suspension's length carries what hangs on it: the parts and the named
+    # points move down with its end (as sizing lengthens it)
+    hung = 0.0
+    if "suspension.length" in changes and design.suspension.flexible:
+        hung = float(changes["suspension.length"]) - _nominal(design, "suspension.length",
+                                                             "length")
+    moved = set()
     for path, value in changes.items():
         if path not in paths:
             raise InvalidInput(f"change of {path}", path, "the path of a quantity in the "
@@ -291,6 +308,9 @@ def perturbed(design: Design, changes: Mapping[str, float]) -> Design:
             continue
         if section == "part":
             t = data["part"][_part_index(data, name)]
+            if key == next(p.at for p in design.parts if p.name == name):
+                v += hung
+                moved.add(name)
             if key == "density" and "material" in t:
                 part = next(p for p in design.parts if p.name == name)
                 t.pop("material")
@@ -302,6 +322,13 @@ def perturbed(design: Design, changes: Mapping[str, float]) -> Design:
         elif path == "environment.latitude":
             envt.pop("gravity", None)
         data.setdefault(section, {})[key] = _si(v, kind)
+    if hung and math.isfinite(hung):
+        for p in design.parts:
+            if p.name not in moved:
+                data["part"][_part_index(data, p.name)][p.at] = _si(p.position + hung,
+                                                                    "length")
+        for t, (_, along, _) in zip(data.get("point") or (), design.points):
+            t["along"] = _si(along + hung, "length")
     swing["amplitude"] = [_si(a, "angle") for a in amps]
     try:
         out = parse_data(data, design.source)
@@ -582,7 +609,9 @@ def analyse(design: Design, outputs=None, tolerances=None, samples: int = 100_00
     H_ij = (f(e_i + e_j) - f(e_i - e_j) - f(-e_i + e_j) + f(-e_i - e_j)) / 4
     (2 n^2 + 1 re-reads for n inputs). RSS = sqrt(sum g_i^2) (first-order propagation,
     ISO/IEC Guide 98-3); linear worst case f0 +- sum |g_i|; the sign corners u = +-sign(g)
-    are evaluated exactly and the wider of the two worst cases is kept. The Monte Carlo
+    are evaluated exactly. Where the output is monotone along every input's band (the
+    axis evaluations tell), the corners are the worst case (the linear stack-up would
+    overshoot a curved response); otherwise the wider of the two is kept. The Monte Carlo
     samples are evaluated on the response surface f0 + g.u + u.H.u / 2 (vectorised, as an
     exact re-read per sample would take minutes); :data:`CHECK_SAMPLES` of them are also
     evaluated exactly, and a warning is given when the surface is off by more than
@@ -636,8 +665,10 @@ def analyse(design: Design, outputs=None, tolerances=None, samples: int = 100_00
     f0 = exact(unit())
     grad = {k: np.zeros(m) for k in keys}
     hess = {k: np.zeros((m, m)) for k in keys}
+    axes = []
     for i in range(m):
         hi, lo = exact(unit((i, 1.0))), exact(unit((i, -1.0)))
+        axes.append((hi, lo))
         for k in keys:
             grad[k][i] = 0.5 * (hi[k] - lo[k])
             hess[k][i, i] = hi[k] - 2.0 * f0[k] + lo[k]
@@ -688,10 +719,15 @@ def analyse(design: Design, outputs=None, tolerances=None, samples: int = 100_00
         contrib += [Contribution(i.path, 0.0, 0.0, 0.0) for i in ins if i.half_width == 0.0]
         contrib.sort(key=lambda c: -abs(c.value))
         nominal = float(f0[k])
+        # monotone along every input's band: the exact sign corners are the extremes, the
+        # linear stack-up overshoots a curved response; otherwise keep the wider of both
+        monotone = all((hi_[k] - f0[k]) * (f0[k] - lo_[k]) >= 0.0 for hi_, lo_ in axes)
+        worst_low = corner_low if monotone else min(nominal - lin, corner_low)
+        worst_high = corner_high if monotone else max(nominal + lin, corner_high)
         bands.append(OutputBand(
             key=k, nominal=nominal, rss=rss, worst_linear=lin, corner_low=float(corner_low),
-            corner_high=float(corner_high), worst_low=min(nominal - lin, corner_low),
-            worst_high=max(nominal + lin, corner_high), mc_mean=float(np.mean(f)),
+            corner_high=float(corner_high), worst_low=float(worst_low),
+            worst_high=float(worst_high), mc_mean=float(np.mean(f)),
             mc_std=std, mc_low=q_lo, mc_high=q_hi, mc_min=float(np.min(f)),
             mc_max=float(np.max(f)), surrogate_error=float(err),
             contributions=tuple(contrib)))

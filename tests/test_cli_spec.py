@@ -56,8 +56,7 @@ EXPECTED = {
 }
 COMMON = ("design_name", "revision", "date", "mass_kg", "com_distance_m",
           "inertia_pivot_kg_m2", "equivalent_length_m", "small_angle_period_s",
-          "small_angle_beats_per_hour", "amplitude_1.period_s", "amplitude_1.beats_per_hour",
-          "amplitude_1.small_angle_period_error_rel", "amplitude_1.peak_pivot_load_N",
+          "amplitude_1.period_s", "amplitude_1.small_angle_period_error_rel", "amplitude_1.peak_pivot_load_N",
           "amplitude_1.peak_tension_N", "separatrix_energy_J", "over_top_angular_speed_rad_s",
           "amplitude_1.separatrix_margin")
 
@@ -80,6 +79,12 @@ def test_every_bundled_design_gives_a_sensible_sheet(name):
     assert len(_cautions(out)) >= 3
     clock = d.context == "clock"
     assert any(k.endswith("clock_rate_s_per_day") for k in rows) == clock
+    # beats for a clock, the frequency for anything else
+    beat = ("small_angle_beats_per_hour", "amplitude_1.beats_per_hour")
+    freq = ("small_angle_frequency_Hz", "amplitude_1.frequency_Hz")
+    for key in beat if clock else freq:
+        assert key in rows and rows[key][2] != "", key
+    assert not set(freq if clock else beat) & set(rows)
 
 
 def test_default_is_the_bundled_clock_as_a_terminal_table():

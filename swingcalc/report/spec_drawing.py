@@ -79,7 +79,6 @@ def render_vector(sheet: SpecSheet, fmt: str) -> bytes:
     if fmt not in VECTOR_FORMATS:
         raise ValueError(fmt)
     require_matplotlib(fmt)
-    import matplotlib
     from matplotlib.figure import Figure
     from matplotlib.lines import Line2D
 
@@ -91,8 +90,9 @@ def render_vector(sheet: SpecSheet, fmt: str) -> bytes:
     title_h = 4 * _ROW + 10.0
     height = (2 * _MARGIN + title_h + (len(body) + sections + 2) * _ROW
               + (len(note_lines) + len(caution_lines) + 3) * _ROW)
-    rc = dict(RC, **_FONTS[fmt])
-    with matplotlib.rc_context(rc):
+    from ..plots import style
+
+    with style(dict(RC, **_FONTS[fmt])):
         fig = Figure(figsize=(width * _PT, height * _PT))
         tr = fig.dpi_scale_trans
 

@@ -114,12 +114,14 @@ def tolerance_report(design, outputs=None, samples: int = 100_000, seed: int = 0
     notes = [res.method,
              ("Change at the upper band end: the first-order change of the output when the "
               "input goes from its nominal to the upper end of its band (central "
-              "difference), in the output's unit; share of variance c_i^2 / sum c^2. Rates "
-              "are positive when the clock gains.")]
+              "difference), in the output's unit; share of variance c_i^2 / sum c^2.")]
+    rate = any(o.key == "rate_s_per_day" for o in res.outputs)
+    if rate:
+        notes[-1] += " Rates are positive when the clock gains."
     if any(i.path == "swing.amplitude" for i in res.inputs):
         notes.append("A band on swing.amplitude moves every listed amplitude by the same "
                      "amount (each kept in [0, 180) deg).")
-    if res.reference == "nominal period":
+    if rate and res.reference == "nominal period":
         notes.append("The design gives no target period: the rate is measured against "
                      "its nominal period, so it is 0 at the nominal design.")
     return Report("tolerance", _title("Tolerance analysis", design), inputs, summary,

@@ -84,6 +84,7 @@ KINDS = {
     "angle": _same("deg", _DEG),
     "angular_speed": _same("rad/s"),
     "beat_rate": _same("beats/h"),
+    "frequency": _same("Hz"),
     "fraction": _same("%", 100.0),
     "ratio": _same(""),
     "rate": _same("s/day"),
