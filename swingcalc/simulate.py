@@ -763,13 +763,14 @@ class _Run:
         h_t, h_th, h_om = self.h_t, self.h_th, self.h_om
         cap = self.max_history
         peak = self.peak_speed
+        last_h = self.last_h
         state = rhs.state
         run = self
 
         def solout(x, y):
             # Called after every accepted step: only sign changes of the step's end values
             # are looked at here; the events are located afterwards (_events).
-            nonlocal prev_t, prev_y, n, up, peak, progress, hist_every
+            nonlocal prev_t, prev_y, n, up, peak, progress, hist_every, last_h
             try:
                 yl = y.tolist()
                 th = yl[0]
@@ -814,7 +815,7 @@ class _Run:
                     if len(h_t) > cap:
                         run.thin_history()
                         hist_every = run.stride
-                run.last_h = x - prev_t
+                last_h = x - prev_t
                 prev_t = x
                 prev_y = yl
                 if state["failed"]:
@@ -845,6 +846,7 @@ class _Run:
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")     # the return code is checked below
             y = stepper.integrate(self.t_end)
+        self.last_h = last_h
         x, idid = stepper.t, stepper.get_return_code()
         if rhs.state["failed"] or idid < 0:
             self.status = Status.FAILED

@@ -221,6 +221,22 @@ def _free_rhs(p: Params, out, o, state, i_c, i_d):
                     state["failed"] = True
                     out[:] = 0.0
                 return out
+    elif c and D and not p.linear:
+        # viscous and air drag together, the usual real case: no branches left
+        def rhs(t, y):
+            try:
+                yl = y.tolist()
+                om = w0 * yl[1]
+                pv = c * om
+                pd = D * om * abs(om)
+                o[0] = om
+                o[1] = (-M * sin(yl[0]) - pv - pd) * inv_iw
+                o[i_c] = pv * om * inv_e
+                o[i_d] = pd * om * inv_e
+            except (ArithmeticError, ValueError, TypeError):
+                state["failed"] = True
+                out[:] = 0.0
+            return out
     else:
         linear = bool(p.linear)
 
