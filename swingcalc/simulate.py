@@ -189,10 +189,10 @@ class SwingModel:
         >>> round(m.small_angle_period, 6)
         2.000086
         """
-        kw = dict(inertia=pendulum.inertia_kg_m2, mass=pendulum.mass_kg,
-                  com_distance=pendulum.com_distance_m, gravity=pendulum.gravity_m_s2,
-                  restoring_moment=pendulum.restoring_moment_N_m,
-                  drag=pendulum.air.drag_coefficient_N_m_s2, name=name)
+        kw = {"inertia": pendulum.inertia_kg_m2, "mass": pendulum.mass_kg,
+              "com_distance": pendulum.com_distance_m, "gravity": pendulum.gravity_m_s2,
+              "restoring_moment": pendulum.restoring_moment_N_m,
+              "drag": pendulum.air.drag_coefficient_N_m_s2, "name": name}
         if pivot is not None and pivot.kind == "pin":
             kw.update(pin_radius=pivot.pin_radius, friction=pivot.friction_coefficient,
                       static_friction=pivot.static_friction_coefficient)
@@ -943,13 +943,37 @@ class _Run:
         idx, x, kind = idx[order], x[order], kind[order]
         direction = np.concatenate(ev_dir)[order]
         level = np.concatenate(ev_level)[order]
-        t = (t_a[idx] + x * hs.h[idx]).tolist()
-        values = hs.take(idx).value(x).T.tolist()
-        for t_e, y, kd, dn, lev in zip(t, values, kind.tolist(), direction.tolist(),
-                                       level.tolist()):
-            action = self._apply(t_e, y, "turn" if kd else "bottom", (dn, lev), s)
-            if action is not None:
-                return action
+        t = t_a[idx] + x * hs.h[idx]
+        values = hs.take(idx).value(x)
+        bottom = kind == 0
+        values[0, bottom] = level[bottom]           # as _apply pins them
+        values[1, ~bottom] = 0.0
+        th = values[0]
+        th_w = np.where(np.abs(th) > math.pi, th - _TWO_PI * np.round(th / _TWO_PI), th)
+        ups = bottom & (direction > 0)
+        action_due = (
+            (self.max_cycles is not None
+             and self.up_count + int(ups.sum()) > self.max_cycles)
+            or (self.stop_amplitude is not None
+                and bool(np.any(~bottom & (np.abs(th_w) < self.stop_amplitude))))
+            or (self.friction and s is not None and not bottom.all()))
+        if action_due:
+            # an action among them (not expected: solout flags those brackets): one by one
+            for t_e, y, kd, dn, lev in zip(t.tolist(), values.T.tolist(), kind.tolist(),
+                                           direction.tolist(), level.tolist()):
+                action = self._apply(t_e, y, "turn" if kd else "bottom", (dn, lev), s)
+                if action is not None:
+                    return action
+            return None
+        # the records _apply would make, in bulk
+        e_ref, w0, p, energy = self.p.e_ref, self.w0, self.p, _k.energy
+        ledgers = [tuple(v) for v in (values[2:] * e_ref).T.tolist()]
+        energies = [energy(p, a, b * w0) for a, b in zip(th.tolist(), values[1].tolist())]
+        rows = list(zip(t.tolist(), bottom.tolist(), direction.tolist(), th_w.tolist(),
+                        ledgers, energies))
+        self.bottoms.extend((r[0], r[2], r[4], r[5]) for r in rows if r[1])
+        self.turns.extend((r[0], r[3], r[4], r[5]) for r in rows if not r[1])
+        self.up_count += int(ups.sum())
         return None
 
     def _bracket(self, bracket, rhs, s):
