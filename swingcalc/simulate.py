@@ -564,6 +564,7 @@ class _Interrupt:
 
 
 _INT_MAX = 2 ** 31 - 1
+_DEFERRED = "deferred"
 
 
 class _Run:
@@ -766,11 +767,13 @@ class _Run:
         last_h = self.last_h
         state = rhs.state
         run = self
+        # a long stretch's brackets are located while it runs, in chunks (bounded memory)
+        flush_at = self._FLUSH if self.batch_events else math.inf
 
         def solout(x, y):
             # Called after every accepted step: only sign changes of the step's end values
             # are looked at here; the events are located afterwards (_events).
-            nonlocal prev_t, prev_y, n, up, peak, progress, hist_every, last_h
+            nonlocal prev_t, prev_y, n, up, peak, progress, hist_every, last_h, flush_at
             try:
                 yl = y.tolist()
                 th = yl[0]
@@ -804,6 +807,12 @@ class _Run:
                         flags |= 4
                 if flags:
                     brackets.append((prev_t, prev_y, x, yl, flags))
+                    if len(brackets) >= flush_at and not flags & 28:
+                        # all of them without actions (an action stops the stepper)
+                        if run._batch(brackets, s, defer_actions=True) is _DEFERRED:
+                            flush_at = math.inf
+                        else:
+                            brackets.clear()
                 om = w * w0
                 if om > peak or -om > peak:
                     peak = abs(om)
@@ -871,6 +880,7 @@ class _Run:
     # pass off (batch_events = False) to check that both give the same events.
     batch_events = True
     _BATCH_MIN = 8
+    _FLUSH = 4096
 
     def _events(self, brackets, rhs, s):
         """Locate the events of each bracket (step with a sign change) and record them in
@@ -893,10 +903,11 @@ class _Run:
                 return action
         return None
 
-    def _batch(self, brackets, s):
+    def _batch(self, brackets, s, defer_actions=False):
         """The bottoms and turns of many brackets without actions, on their quintic Hermite
         interpolants built and solved together (the same interpolant and the same root as
-        :meth:`_bracket`, to rounding)."""
+        :meth:`_bracket`, to rounding). With ``defer_actions``, brackets that would hold an
+        action are left unrecorded (returns _DEFERRED) for :meth:`_events`."""
         t_a = np.array([b[0] for b in brackets])
         t_b = np.array([b[2] for b in brackets])
         y_a = np.array([b[1] for b in brackets]).T
@@ -958,6 +969,8 @@ class _Run:
                 and bool(np.any(~bottom & (np.abs(th_w) < self.stop_amplitude))))
             or (self.friction and s is not None and not bottom.all()))
         if action_due:
+            if defer_actions:
+                return _DEFERRED
             # an action among them (not expected: solout flags those brackets): one by one
             for t_e, y, kd, dn, lev in zip(t.tolist(), values.T.tolist(), kind.tolist(),
                                            direction.tolist(), level.tolist()):

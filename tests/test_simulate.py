@@ -295,22 +295,28 @@ def test_a_start_next_to_the_separatrix_is_warned_about():
 # replaces); the outside anchors of the results themselves are the tests above.
 
 def _run_both(monkeypatch, *args, **kw):
-    """The run with the vectorised pass (checked to be used) and without it."""
+    """The run with the vectorised pass (checked to be used), with it in small chunks during
+    the run, and without it."""
     run_cls = sys.modules["swingcalc.simulate"]._Run
     batch = run_cls._batch
     used = []
 
-    def counted(self, brackets, s):
+    def counted(self, brackets, s, **kw):
         used.append(len(brackets))
-        return batch(self, brackets, s)
+        return batch(self, brackets, s, **kw)
 
     monkeypatch.setattr(run_cls, "_batch", counted)
     fast = simulate(*args, **kw)
     assert used and max(used) >= run_cls._BATCH_MIN
+    # located in chunks while the stepper runs (as long runs are)
+    used.clear()
+    monkeypatch.setattr(run_cls, "_FLUSH", 16)
+    chunked = simulate(*args, **kw)
+    assert used.count(16) >= 2
     monkeypatch.setattr(run_cls, "batch_events", False)
     slow = simulate(*args, **kw)
     monkeypatch.undo()
-    return fast, slow
+    return fast, chunked, slow
 
 
 def _assert_same(fast, slow, rel):
@@ -350,8 +356,9 @@ def test_vectorised_event_pass_matches_the_one_by_one_path(monkeypatch, case):
                  {"duration": 500.0, "stop_amplitude": 0.05}),
     }
     args, kw = cases[case]
-    fast, slow = _run_both(monkeypatch, *args, **kw)
+    fast, chunked, slow = _run_both(monkeypatch, *args, **kw)
     _assert_same(fast, slow, 1e-12)
+    _assert_same(chunked, slow, 1e-12)
 
 
 def test_array_right_hand_side_matches_the_scalar_one():
