@@ -189,10 +189,10 @@ class SwingModel:
         >>> round(m.small_angle_period, 6)
         2.000086
         """
-        kw = dict(inertia=pendulum.inertia_kg_m2, mass=pendulum.mass_kg,
-                  com_distance=pendulum.com_distance_m, gravity=pendulum.gravity_m_s2,
-                  restoring_moment=pendulum.restoring_moment_N_m,
-                  drag=pendulum.air.drag_coefficient_N_m_s2, name=name)
+        kw = {"inertia": pendulum.inertia_kg_m2, "mass": pendulum.mass_kg,
+              "com_distance": pendulum.com_distance_m, "gravity": pendulum.gravity_m_s2,
+              "restoring_moment": pendulum.restoring_moment_N_m,
+              "drag": pendulum.air.drag_coefficient_N_m_s2, "name": name}
         if pivot is not None and pivot.kind == "pin":
             kw.update(pin_radius=pivot.pin_radius, friction=pivot.friction_coefficient,
                       static_friction=pivot.static_friction_coefficient)
@@ -564,6 +564,7 @@ class _Interrupt:
 
 
 _INT_MAX = 2 ** 31 - 1
+_DEFERRED = "deferred"
 
 
 class _Run:
@@ -620,6 +621,12 @@ class _Run:
         if s not in self._rhs:
             self._rhs[s] = _k.make_rhs(self.p, float(s), np.zeros(self.n))
         return self._rhs[s]
+
+    def rhs_array(self, s):
+        key = ("array", s)
+        if key not in self._rhs:
+            self._rhs[key] = _k.make_rhs_array(self.p, float(s))
+        return self._rhs[key]
 
     def ledger(self, y) -> tuple:
         return tuple(float(v) * self.p.e_ref for v in y[2:])
@@ -743,13 +750,12 @@ class _Run:
         rhs = self.rhs(s if self.friction else 1)
         w0 = self.w0
         brackets = []
-        impulses = [(a, dn, k) for k, dr in enumerate(self.impulses) for a, dn in
-                    dr.crossings()]
+        impulses = [(a, dn) for dr in self.impulses for a, dn in dr.crossings()]
         friction = self.friction
         stop_amp = self.stop_amplitude
         want_cycles = self.max_cycles
         prev_t = self.t
-        prev_y = self.y.copy()
+        prev_y = self.y.tolist()
         n = 0
         up = self.up_count
         interrupt = self.interrupt
@@ -758,17 +764,22 @@ class _Run:
         h_t, h_th, h_om = self.h_t, self.h_th, self.h_om
         cap = self.max_history
         peak = self.peak_speed
+        last_h = self.last_h
         state = rhs.state
         run = self
+        # a long stretch's brackets are located while it runs, in chunks (bounded memory)
+        flush_at = self._FLUSH if self.batch_events else math.inf
 
         def solout(x, y):
-            nonlocal prev_t, prev_y, n, up, peak, progress, hist_every
+            # Called after every accepted step: only sign changes of the step's end values
+            # are looked at here; the events are located afterwards (_events).
+            nonlocal prev_t, prev_y, n, up, peak, progress, hist_every, last_h, flush_at
             try:
-                th = y[0]
-                w = y[1]
-                py = prev_y
-                pth = py[0]
-                pw = py[1]
+                yl = y.tolist()
+                th = yl[0]
+                w = yl[1]
+                pth = prev_y[0]
+                pw = prev_y[1]
                 n += 1
                 if n == 1 and x == prev_t:
                     return 1
@@ -791,12 +802,17 @@ class _Run:
                     flags |= 2
                     if friction or stop_amp is not None and max(abs(th), abs(pth)) < stop_amp:
                         flags |= 8
-                for a, dn, _ in impulses:
+                for a, dn in impulses:
                     if (dn > 0 and pth < a <= th) or (dn < 0 and pth > a >= th):
                         flags |= 4
-                yc = y.copy()
                 if flags:
-                    brackets.append((prev_t, py, x, yc, flags))
+                    brackets.append((prev_t, prev_y, x, yl, flags))
+                    if len(brackets) >= flush_at and not flags & 28:
+                        # all of them without actions (an action stops the stepper)
+                        if run._batch(brackets, s, defer_actions=True) is _DEFERRED:
+                            flush_at = math.inf
+                        else:
+                            brackets.clear()
                 om = w * w0
                 if om > peak or -om > peak:
                     peak = abs(om)
@@ -808,9 +824,9 @@ class _Run:
                     if len(h_t) > cap:
                         run.thin_history()
                         hist_every = run.stride
-                run.last_h = x - prev_t
+                last_h = x - prev_t
                 prev_t = x
-                prev_y = yc
+                prev_y = yl
                 if state["failed"]:
                     return -1
                 if n & 255 == 0:
@@ -839,6 +855,7 @@ class _Run:
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")     # the return code is checked below
             y = stepper.integrate(self.t_end)
+        self.last_h = last_h
         x, idid = stepper.t, stepper.get_return_code()
         if rhs.state["failed"] or idid < 0:
             self.status = Status.FAILED
@@ -858,82 +875,199 @@ class _Run:
             return None
         return ("continue", None)
 
+    # Brackets are located in one vectorised pass when a segment has at least this many
+    # without a possible action (long free runs); fewer go one by one. Tests switch the
+    # pass off (batch_events = False) to check that both give the same events.
+    batch_events = True
+    _BATCH_MIN = 8
+    _FLUSH = 4096
+
     def _events(self, brackets, rhs, s):
-        """Locate the events of each bracket on the replayed step's dense output; apply
-        the first action (push, friction switch, end, stop); return (kind, value) if one
-        was applied, else None."""
-        for t_a, y_a, t_b, y_b, flags in brackets:
-            if flags & (4 | 8 | 16):
-                # an action may follow: the step's own 7th-order dense output
-                ds = _k.replay_step(rhs, t_a, np.asarray(y_a, dtype=float), t_b - t_a)
+        """Locate the events of each bracket (step with a sign change) and record them in
+        order; apply the first action (push, friction switch, end, stop); return
+        (kind, value) if one was applied, else None. Only the last bracket of a segment
+        can hold an action (solout stops the stepper there)."""
+        k = 0
+        if self.batch_events:
+            while k < len(brackets) and not brackets[k][4] & 28:
+                k += 1
+            if k >= self._BATCH_MIN:
+                action = self._batch(brackets[:k], s)
+                if action is not None:
+                    return action
             else:
-                ds = _k.hermite_step(rhs, t_a, y_a, t_b, y_b, self.w0)
-            found = []   # (t, x, kind, data)
+                k = 0
+        for bracket in brackets[k:]:
+            action = self._bracket(bracket, rhs, s)
+            if action is not None:
+                return action
+        return None
 
-            def root(j, level, ds=ds, y_a=y_a):
-                f0 = float(y_a[j]) - level
-                f1 = ds.component(j, 1.0) - level
-                if f0 == 0.0 or (f0 > 0.0) == (f1 > 0.0):
-                    return None
-                return _k.find_root(lambda u, ds=ds: ds.component(j, u) - level, 0.0, 1.0,
-                                    f0, f1)
+    def _batch(self, brackets, s, defer_actions=False):
+        """The bottoms and turns of many brackets without actions, on their quintic Hermite
+        interpolants built and solved together (the same interpolant and the same root as
+        :meth:`_bracket`, to rounding). With ``defer_actions``, brackets that would hold an
+        action are left unrecorded (returns _DEFERRED) for :meth:`_events`."""
+        t_a = np.array([b[0] for b in brackets])
+        t_b = np.array([b[2] for b in brackets])
+        y_a = np.array([b[1] for b in brackets]).T
+        y_b = np.array([b[3] for b in brackets]).T
+        flags = np.array([b[4] for b in brackets])
+        hs = _k.hermite_steps(self.rhs_array(s if self.friction else 1), t_a, y_a, t_b,
+                              y_b, self.w0)
+        ev_i, ev_x, ev_kind, ev_dir, ev_level = [], [], [], [], []
 
-            if flags & 1:
-                th_b = ds.component(0, 1.0)
-                level = _TWO_PI * round(th_b / _TWO_PI) if abs(th_b) >= 3.0 else 0.0
-                x = root(0, level)
-                if x is not None:
-                    direction = 1 if ds.component(1, x) > 0.0 else -1
-                    found.append((x, "bottom", (direction, level)))
-            if flags & 2:
-                x = root(1, 0.0)
-                if x is not None:
-                    found.append((x, "turn", None))
-            if flags & 4:
-                for k, dr in enumerate(self.impulses):
-                    for a, dn in dr.crossings():
-                        pa = float(y_a[0])
-                        pb = ds.component(0, 1.0)
-                        if (dn > 0 and pa < a <= pb) or (dn < 0 and pa > a >= pb):
-                            x = root(0, a)
-                            if x is None and pb == a:
-                                x = 1.0
-                            if x is not None:
-                                found.append((x, "kick", (k, a)))
-            # a push exactly at the bottom coincides with the bottom passage: same time
-            kicks_at_bottom = [f[0] for f in found if f[1] == "kick" and f[2][1] == 0.0]
-            if kicks_at_bottom:
-                found = [(kicks_at_bottom[0], k, d) if k == "bottom" and d[1] == 0.0
-                         else (x, k, d) for x, k, d in found]
-            found.sort(key=lambda f: (f[0], {"bottom": 0, "turn": 1, "kick": 2}[f[1]]))
-            for x, kind, data in found:
-                t = t_a + x * ds.h
-                y = ds.value(x)
-                if kind == "bottom":
-                    direction, level = data
-                    y[0] = level
-                    self.bottoms.append((t, direction, self.ledger(y), self.energy_of(y)))
-                    if direction > 0:
-                        self.up_count += 1
-                        if self.max_cycles is not None and self.up_count > self.max_cycles:
-                            return self._finish_at(t, y)
-                elif kind == "turn":
-                    y[1] = 0.0
-                    th = float(y[0])
-                    # the amplitude is measured from the nearest bottom (after turns over
-                    # the top the angle is unwrapped)
-                    th_w = th - _TWO_PI * round(th / _TWO_PI) if abs(th) > math.pi else th
-                    self.turns.append((t, th_w, self.ledger(y), self.energy_of(y)))
-                    if self.friction and s is not None:
-                        return self._switch(t, y, s)
-                    if self.stop_amplitude is not None and abs(th_w) < self.stop_amplitude:
-                        self.status = Status.STOPPED
-                        self.message = (f"stopped at the turning point t = {t:.9g} s: "
-                                        f"amplitude below {self.stop_amplitude:.6g} rad")
-                        return self._finish_at(t, y)
-                else:
-                    k, a = data
-                    return self._kick(t, y, k, a, s)
+        def roots(j, level, sel):
+            sub = hs.take(sel)
+            lev = level[sel]
+            f0 = y_a[j, sel] - lev
+            f1 = sub.component(j, 1.0) - lev
+            ok = (f0 != 0.0) & ((f0 > 0.0) != (f1 > 0.0))
+            sub = sub.take(np.flatnonzero(ok))
+            lev = lev[ok]
+            x = _k.find_roots(lambda u: sub.component(j, u) - lev,
+                              lambda u: sub.slope(j, u), f0[ok], f1[ok])
+            return sel[ok], x, sub
+
+        sel = np.flatnonzero(flags & 1)
+        if sel.size:
+            th_b = hs.component(0, 1.0)
+            level = np.where(np.abs(th_b) >= 3.0, _TWO_PI * np.round(th_b / _TWO_PI), 0.0)
+            idx, x, sub = roots(0, level, sel)
+            ev_i.append(idx)
+            ev_x.append(x)
+            ev_kind.append(np.zeros(idx.size, dtype=int))
+            ev_dir.append(np.where(sub.component(1, x) > 0.0, 1, -1))
+            ev_level.append(level[idx])
+        sel = np.flatnonzero(flags & 2)
+        if sel.size:
+            idx, x, _ = roots(1, np.zeros(len(brackets)), sel)
+            ev_i.append(idx)
+            ev_x.append(x)
+            ev_kind.append(np.ones(idx.size, dtype=int))
+            ev_dir.append(np.zeros(idx.size, dtype=int))
+            ev_level.append(np.zeros(idx.size))
+        if not ev_i:
+            return None
+        idx, x, kind = np.concatenate(ev_i), np.concatenate(ev_x), np.concatenate(ev_kind)
+        order = np.lexsort((kind, x, idx))      # by bracket, then time, bottom before turn
+        idx, x, kind = idx[order], x[order], kind[order]
+        direction = np.concatenate(ev_dir)[order]
+        level = np.concatenate(ev_level)[order]
+        t = t_a[idx] + x * hs.h[idx]
+        values = hs.take(idx).value(x)
+        bottom = kind == 0
+        values[0, bottom] = level[bottom]           # as _apply pins them
+        values[1, ~bottom] = 0.0
+        th = values[0]
+        th_w = np.where(np.abs(th) > math.pi, th - _TWO_PI * np.round(th / _TWO_PI), th)
+        ups = bottom & (direction > 0)
+        action_due = (
+            (self.max_cycles is not None
+             and self.up_count + int(ups.sum()) > self.max_cycles)
+            or (self.stop_amplitude is not None
+                and bool(np.any(~bottom & (np.abs(th_w) < self.stop_amplitude))))
+            or (self.friction and s is not None and not bottom.all()))
+        if action_due:
+            if defer_actions:
+                return _DEFERRED
+            # an action among them (not expected: solout flags those brackets): one by one
+            for t_e, y, kd, dn, lev in zip(t.tolist(), values.T.tolist(), kind.tolist(),
+                                           direction.tolist(), level.tolist()):
+                action = self._apply(t_e, y, "turn" if kd else "bottom", (dn, lev), s)
+                if action is not None:
+                    return action
+            return None
+        # the records _apply would make, in bulk
+        e_ref, w0, p, energy = self.p.e_ref, self.w0, self.p, _k.energy
+        ledgers = [tuple(v) for v in (values[2:] * e_ref).T.tolist()]
+        energies = [energy(p, a, b * w0) for a, b in zip(th.tolist(), values[1].tolist())]
+        rows = list(zip(t.tolist(), bottom.tolist(), direction.tolist(), th_w.tolist(),
+                        ledgers, energies))
+        self.bottoms.extend((r[0], r[2], r[4], r[5]) for r in rows if r[1])
+        self.turns.extend((r[0], r[3], r[4], r[5]) for r in rows if not r[1])
+        self.up_count += int(ups.sum())
+        return None
+
+    def _bracket(self, bracket, rhs, s):
+        """The events of one bracket, located on its interpolant: the step's own 7th-order
+        dense output where an action may follow, else the quintic Hermite interpolant."""
+        t_a, y_a, t_b, y_b, flags = bracket
+        if flags & (4 | 8 | 16):
+            ds = _k.replay_step(rhs, t_a, np.asarray(y_a, dtype=float), t_b - t_a)
+        else:
+            ds = _k.hermite_step(rhs, t_a, y_a, t_b, y_b, self.w0)
+        found = []   # (x, kind, data)
+
+        def root(j, level):
+            f0 = float(y_a[j]) - level
+            f1 = ds.component(j, 1.0) - level
+            if f0 == 0.0 or (f0 > 0.0) == (f1 > 0.0):
+                return None
+            return _k.find_root(lambda u: ds.component(j, u) - level, 0.0, 1.0, f0, f1)
+
+        if flags & 1:
+            th_b = ds.component(0, 1.0)
+            level = _TWO_PI * round(th_b / _TWO_PI) if abs(th_b) >= 3.0 else 0.0
+            x = root(0, level)
+            if x is not None:
+                direction = 1 if ds.component(1, x) > 0.0 else -1
+                found.append((x, "bottom", (direction, level)))
+        if flags & 2:
+            x = root(1, 0.0)
+            if x is not None:
+                found.append((x, "turn", None))
+        if flags & 4:
+            for k, dr in enumerate(self.impulses):
+                for a, dn in dr.crossings():
+                    pa = float(y_a[0])
+                    pb = ds.component(0, 1.0)
+                    if (dn > 0 and pa < a <= pb) or (dn < 0 and pa > a >= pb):
+                        x = root(0, a)
+                        if x is None and pb == a:
+                            x = 1.0
+                        if x is not None:
+                            found.append((x, "kick", (k, a)))
+        # a push exactly at the bottom coincides with the bottom passage: same time
+        kicks_at_bottom = [f[0] for f in found if f[1] == "kick" and f[2][1] == 0.0]
+        if kicks_at_bottom:
+            found = [(kicks_at_bottom[0], k, d) if k == "bottom" and d[1] == 0.0
+                     else (x, k, d) for x, k, d in found]
+        found.sort(key=lambda f: (f[0], {"bottom": 0, "turn": 1, "kick": 2}[f[1]]))
+        for x, kind, data in found:
+            action = self._apply(t_a + x * ds.h, ds.value(x), kind, data, s)
+            if action is not None:
+                return action
+        return None
+
+    def _apply(self, t, y, kind, data, s):
+        """Record an event at t with state y (a list or an array, changed in place); return
+        (kind, value) if it ends the segment."""
+        if kind == "bottom":
+            direction, level = data
+            y[0] = level
+            self.bottoms.append((t, direction, self.ledger(y), self.energy_of(y)))
+            if direction > 0:
+                self.up_count += 1
+                if self.max_cycles is not None and self.up_count > self.max_cycles:
+                    return self._finish_at(t, np.array(y, dtype=float))
+        elif kind == "turn":
+            y[1] = 0.0
+            th = float(y[0])
+            # the amplitude is measured from the nearest bottom (after turns over the top
+            # the angle is unwrapped)
+            th_w = th - _TWO_PI * round(th / _TWO_PI) if abs(th) > math.pi else th
+            self.turns.append((t, th_w, self.ledger(y), self.energy_of(y)))
+            if self.friction and s is not None:
+                return self._switch(t, np.array(y, dtype=float), s)
+            if self.stop_amplitude is not None and abs(th_w) < self.stop_amplitude:
+                self.status = Status.STOPPED
+                self.message = (f"stopped at the turning point t = {t:.9g} s: "
+                                f"amplitude below {self.stop_amplitude:.6g} rad")
+                return self._finish_at(t, np.array(y, dtype=float))
+        else:
+            k, a = data
+            return self._kick(t, np.array(y, dtype=float), k, a, s)
         return None
 
     def _finish_at(self, t, y):

@@ -5,6 +5,7 @@ Coulomb, quadratic drag, forced, pushed) and energy conservation."""
 import math
 import os
 import signal
+import sys
 
 import numpy as np
 import pytest
@@ -287,3 +288,132 @@ def test_a_start_next_to_the_separatrix_is_warned_about():
     near = simulate(SwingModel.simple(1.0, 1.0), math.pi - 1e-6, cycles=1)
     assert any("separatrix" in w for w in near.warnings)
     assert simulate(SwingModel.simple(1.0, 1.0), 1.0, cycles=1).warnings == ()
+
+
+# --- the vectorised event pass against the one-bracket-at-a-time path ---------------------
+# These compare two code paths of the integrator (the fast path must reproduce the path it
+# replaces); the outside anchors of the results themselves are the tests above.
+
+def _run_both(monkeypatch, *args, **kw):
+    """The run with the vectorised pass (checked to be used), with it in small chunks during
+    the run, and without it."""
+    run_cls = sys.modules["swingcalc.simulate"]._Run
+    batch = run_cls._batch
+    used = []
+
+    def counted(self, brackets, s, **kw):
+        used.append(len(brackets))
+        return batch(self, brackets, s, **kw)
+
+    monkeypatch.setattr(run_cls, "_batch", counted)
+    fast = simulate(*args, **kw)
+    assert used and max(used) >= run_cls._BATCH_MIN
+    # located in chunks while the stepper runs (as long runs are)
+    used.clear()
+    monkeypatch.setattr(run_cls, "_FLUSH", 16)
+    chunked = simulate(*args, **kw)
+    assert used.count(16) >= 2
+    monkeypatch.setattr(run_cls, "batch_events", False)
+    slow = simulate(*args, **kw)
+    monkeypatch.undo()
+    return fast, chunked, slow
+
+
+def _assert_same(fast, slow, rel):
+    assert fast.status == slow.status and len(fast.cycles) == len(slow.cycles)
+    for key, col in slow.cycles.columns.items():
+        got = np.asarray(fast.cycles[key], dtype=float)
+        want = np.asarray(col, dtype=float)
+        assert np.array_equal(np.isnan(got), np.isnan(want)), key
+        ok = ~np.isnan(want)
+        scale = max(np.max(np.abs(want[ok]), initial=0.0), 1e-300)
+        assert np.max(np.abs(got[ok] - want[ok]), initial=0.0) <= rel * scale, key
+    for a, b in ((fast.cycles.turning_time_s, slow.cycles.turning_time_s),
+                 (fast.cycles.turning_angle_rad, slow.cycles.turning_angle_rad)):
+        assert a.shape == b.shape
+        assert np.max(np.abs(a - b), initial=0.0) <= rel * np.max(np.abs(b), initial=1e-300)
+    assert fast.energy.final_J == pytest.approx(slow.energy.final_J, rel=rel)
+    assert fast.energy.closure_rel <= 1e-8
+
+
+@pytest.mark.parametrize("case", ["free", "damped", "linear_drag", "driven", "over_top",
+                                  "stop"])
+def test_vectorised_event_pass_matches_the_one_by_one_path(monkeypatch, case):
+    """Both paths build the same quintic Hermite interpolant of each bracket and solve it
+    for its root (Newton in the bracket vs the Illinois method, both to the last bits of
+    x), so the events agree to rounding: 1e-12 of each column's scale leaves room for the
+    difference of a few ulps in the roots, amplified up to ~1e3 in the decrement and Q
+    (a ratio of two nearly equal amplitudes)."""
+    cases = {
+        "free": ((SwingModel.simple(1.0, 1.0, G), 0.5), {"cycles": 60}),
+        "damped": ((SwingModel.simple(1.0, 1.0, drag=1e-4).with_q(2000), 0.5),
+                   {"cycles": 60, "rtol": 1e-10}),
+        "linear_drag": ((linear_oscillator(drag=1e-3), 0.1), {"cycles": 20}),
+        "driven": ((linear_oscillator().with_damping_ratio(0.1), 0.0),
+                   {"duration": 20.0, "drives": [HarmonicTorque(1.0, 5.0)]}),
+        "over_top": ((SwingModel.simple(1.0).with_q(40), 0.0, 7.0), {"duration": 30.0}),
+        "stop": ((SwingModel.simple(1.0).with_q(30), 0.3),
+                 {"duration": 500.0, "stop_amplitude": 0.05}),
+    }
+    args, kw = cases[case]
+    fast, chunked, slow = _run_both(monkeypatch, *args, **kw)
+    _assert_same(fast, slow, 1e-12)
+    _assert_same(chunked, slow, 1e-12)
+
+
+def test_array_right_hand_side_matches_the_scalar_one():
+    """make_rhs_array is make_rhs elementwise, for every mechanism and both sliding
+    directions (same formulas, same order: equal to rounding, 4 ulp allowed)."""
+    from swingcalc.kernels import dynamics as k
+
+    models = [
+        (SwingModel.simple(1.0), ()),
+        (SwingModel.simple(1.0).with_q(100), ()),
+        (SwingModel.simple(1.0, drag=1e-3).with_q(100), ()),
+        (linear_oscillator(drag=1e-3), ()),
+        (SwingModel.simple(1.0, pin_radius=0.01, friction=0.2).with_q(50),
+         (HarmonicTorque(0.3, 2.0, 0.4), PivotMotion("vertical", 0.01, 6.0),
+          PivotMotion("horizontal", 0.02, 3.0, 1.0))),
+        (linear_oscillator(friction_torque=0.2), (HarmonicTorque(1.0, 5.0),)),
+    ]
+    rng = np.random.default_rng(7)
+    sim = sys.modules["swingcalc.simulate"]
+    for model, drives in models:
+        p = sim._params(model, drives, 0.37)
+        n = 2 + len(k.ledger_names(p))
+        t = rng.uniform(0.0, 50.0, 40)
+        Y = rng.uniform(-2.0, 2.0, (n, 40))
+        for s in (1.0, -1.0):
+            scalar = k.make_rhs(p, s, np.zeros(n))
+            want = np.array([scalar(t[i], Y[:, i].copy()).copy() for i in range(40)]).T
+            got = k.make_rhs_array(p, s)(t, Y)
+            assert np.allclose(got, want, rtol=4 * 2.2e-16, atol=4 * 2.2e-16 * np.abs(want).max())
+
+
+def test_find_roots_against_numpy_polynomial_roots():
+    """Roots of random quintics with a sign change on [0, 1] against numpy.roots (the
+    companion-matrix eigenvalues, a general-purpose reference): 1e-12 covers the
+    eigenvalue solver's own error on these well-separated simple roots."""
+    from swingcalc.kernels import dynamics as k
+
+    rng = np.random.default_rng(3)
+    coef = rng.normal(size=(6, 400))
+    coef[1] += 4.0 * np.sign(coef[1])              # mostly monotone, as in a step
+    f0 = coef[0]
+    f1 = coef.sum(axis=0)
+    keep = (f0 > 0) != (f1 > 0)
+    c = coef[:, keep]
+
+    def fun(x):
+        return c[0] + x * (c[1] + x * (c[2] + x * (c[3] + x * (c[4] + x * c[5]))))
+
+    def slope(x):
+        return c[1] + x * (2 * c[2] + x * (3 * c[3] + x * (4 * c[4] + x * 5 * c[5])))
+
+    x = k.find_roots(fun, slope, c[0], c.sum(axis=0))
+    assert np.all((x >= 0.0) & (x <= 1.0))
+    for i in range(c.shape[1]):
+        r = np.roots(c[::-1, i])
+        r = r[np.abs(r.imag) < 1e-9].real
+        r = r[(r >= -1e-12) & (r <= 1 + 1e-12)]
+        assert np.min(np.abs(r - x[i])) <= 1e-12

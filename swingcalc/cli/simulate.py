@@ -42,7 +42,7 @@ def _si(text: str, kind: str, field: str, positive: bool = True) -> float:
     """A quantity of one of the kinds above -> SI (bare numbers are SI)."""
     from ..quantity import parse_quantity
 
-    bounds = dict(minimum=0.0, include_min=not positive)
+    bounds = {"minimum": 0.0, "include_min": not positive}
     if kind == "frequency":
         return _angular_frequency(text, field)
     return parse_quantity(text, _KINDS[kind], field, **bounds)
@@ -151,11 +151,7 @@ def _model(length, mass, inertia, com_distance, gravity, q, damping_ratio, visco
         raise InvalidInput("--q", q, "one of --q, --damping-ratio or --viscous",
                            "give only one")
     if q is not None:
-        from ..quantity import split_magnitude
-
-        value, unit = split_magnitude(q, "--q", "a quality factor Q > 0.5")
-        if unit:
-            raise InvalidInput("--q", q, "a quality factor Q > 0.5", "Q takes no unit")
+        value = _q_value(q)
         model = _named("--q", lambda: model.with_q(value))
     if damping_ratio is not None:
         z = _fraction(damping_ratio, "--damping-ratio")
@@ -206,14 +202,13 @@ def _drives(torque, torque_frequency, pivot, pivot_amplitude, pivot_frequency,
         if per not in ("beat", "swing"):
             raise InvalidInput("--push-per", push_per, "beat or swing")
         angle = _angle(push_angle, "--push-angle") if push_angle is not None else 0.0
-        words = {"counter-clockwise": 1, "ccw": 1, "+": 1, "clockwise": -1, "cw": -1, "-": -1}
         direction = 1
         if push_direction is not None:
             word = push_direction.strip().lower()
-            if word not in words:
+            if word not in _DIRECTIONS:
                 raise InvalidInput("--push-direction", push_direction,
                                    "counter-clockwise (ccw, +) or clockwise (cw, -)")
-            direction = words[word]
+            direction = _DIRECTIONS[word]
         out.append(ImpulseDrive(
             angle, direction=direction,
             energy=None if push_energy is None else _si(push_energy, "energy",
@@ -222,6 +217,9 @@ def _drives(torque, torque_frequency, pivot, pivot_amplitude, pivot_frequency,
                                                                   "--push-impulse"),
             per=per))
     return out
+
+
+_DIRECTIONS = {"counter-clockwise": 1, "ccw": 1, "+": 1, "clockwise": -1, "cw": -1, "-": -1}
 
 
 def _progress_bar():
@@ -382,6 +380,93 @@ def _file_format(path: Path, field: str) -> str:
     return kinds[suffix]
 
 
+def _cycles_value(text: str) -> int:
+    from ..quantity import split_magnitude
+
+    value, unit = split_magnitude(text, "--cycles", "a whole number of cycles >= 1")
+    if unit or value < 1 or value != int(value) or value > 1e9:
+        raise InvalidInput("--cycles", text, "a whole number of cycles in [1, 1e9]")
+    return int(value)
+
+
+def _q_value(text: str) -> float:
+    from .._validate import real_scalar
+    from ..quantity import split_magnitude
+
+    value, unit = split_magnitude(text, "--q", "a quality factor Q > 0.5")
+    if unit:
+        raise InvalidInput("--q", text, "a quality factor Q > 0.5", "Q takes no unit")
+    return real_scalar(value, "--q", "a quality factor Q > 0.5", low=0.5, low_open=True)
+
+
+def _rtol_value(text: str) -> float:
+    from ..quantity import parse_quantity
+
+    return parse_quantity(text, "fraction", "--rtol", minimum=1e-14, maximum=1e-3,
+                          allowed="a relative tolerance in [1e-14, 1e-3]")
+
+
+def _decay_value(text: str) -> float:
+    from ..quantity import parse_quantity
+
+    return parse_quantity(
+        text, "fraction", "--decay-fraction", minimum=0.0, maximum=1.0, include_min=False,
+        include_max=False, allowed="a fraction in (0, 1) of the start amplitude, e.g. '10 %' "
+                                   "or 0.1")
+
+
+def _word(text: str, field: str, words, allowed: str | None = None) -> str:
+    word = text.strip().lower()
+    if word not in words:
+        raise InvalidInput(field, text, allowed or " or ".join(words))
+    return word
+
+
+def _check_values(given: dict) -> None:
+    """Each given option's value on its own, before any check of how the options go
+    together (a missing partner, two that exclude each other, what --averaged refuses), so
+    that a bad value is named first."""
+    from .._validate import real_scalar
+    from ..quantity import parse_quantity
+
+    def ratio(v):
+        real_scalar(_fraction(v, "--damping-ratio"), "--damping-ratio",
+                    "a damping ratio in [0, 1)", low=0.0, high=1.0, high_open=True)
+
+    parsers = {
+        "--length": opt.length, "--mass": opt.mass, "--gravity": opt.gravity,
+        "--inertia": lambda v: _si(v, "inertia", "--inertia"),
+        "--com-distance": lambda v: opt.length(v, "--com-distance"),
+        "--amplitude": lambda v: _angle(v, "--amplitude"),
+        "--angular-speed": lambda v: parse_quantity(v, "angular_velocity", "--angular-speed"),
+        "--duration": lambda v: opt.positive_time(v, "--duration"),
+        "--cycles": _cycles_value, "--q": _q_value, "--damping-ratio": ratio,
+        "--viscous": lambda v: _si(v, "viscous", "--viscous", positive=False),
+        "--drag": lambda v: _si(v, "drag", "--drag", positive=False),
+        "--pin-radius": lambda v: opt.length(v, "--pin-radius"),
+        "--friction": lambda v: _fraction(v, "--friction"),
+        "--static-friction": lambda v: _fraction(v, "--static-friction"),
+        "--friction-torque": lambda v: _si(v, "torque", "--friction-torque", positive=False),
+        "--torque": lambda v: _si(v, "torque", "--torque"),
+        "--torque-frequency": lambda v: _si(v, "frequency", "--torque-frequency"),
+        "--pivot-motion": lambda v: _word(v, "--pivot-motion", ("horizontal", "vertical")),
+        "--pivot-amplitude": lambda v: opt.length(v, "--pivot-amplitude"),
+        "--pivot-frequency": lambda v: _si(v, "frequency", "--pivot-frequency"),
+        "--push-energy": lambda v: _si(v, "energy", "--push-energy"),
+        "--push-impulse": lambda v: _si(v, "impulse", "--push-impulse"),
+        "--push-angle": lambda v: _angle(v, "--push-angle"),
+        "--push-per": lambda v: _word(v, "--push-per", ("beat", "swing")),
+        "--push-direction": lambda v: _word(v, "--push-direction", _DIRECTIONS,
+                                            "counter-clockwise (ccw, +) or clockwise (cw, -)"),
+        "--decay-fraction": _decay_value,
+        "--target-period": lambda v: opt.positive_time(v, "--target-period"),
+        "--rtol": _rtol_value,
+    }
+    for name, value in given.items():
+        if value is not None:
+            parsers[name](value)
+
+
 def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_distance=None,
          amplitude=None, angular_speed=None, duration=None, cycles=None, q=None,
          damping_ratio=None, viscous=None, drag=None, pin_radius=None, friction=None,
@@ -391,13 +476,29 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
          push_direction=None, decay_fraction=None, target_period=None, rtol=None, averaged=False, context=None, cycles_file=None,
          history_file=None, fmt=None, output=None, force=False):
     from ..designfile import CONTEXTS
-    from ..quantity import parse_quantity, split_magnitude, suggest
+    from ..quantity import parse_quantity, suggest
     from ..report.files import write_atomic
     from ..report.formats import render
     from .app import _emit, _precheck
 
     kind, path = _precheck(fmt, output, force)
     files = _files(cycles_file, history_file, force)
+    _check_values({
+        "--length": length, "--mass": mass, "--gravity": gravity, "--inertia": inertia,
+        "--com-distance": com_distance, "--amplitude": amplitude,
+        "--angular-speed": angular_speed, "--duration": duration, "--cycles": cycles,
+        "--q": q, "--damping-ratio": damping_ratio, "--viscous": viscous, "--drag": drag,
+        "--pin-radius": pin_radius, "--friction": friction,
+        "--static-friction": static_friction, "--friction-torque": friction_torque,
+        "--torque": torque, "--torque-frequency": torque_frequency,
+        "--pivot-motion": pivot_motion, "--pivot-amplitude": pivot_amplitude,
+        "--pivot-frequency": pivot_frequency, "--push-energy": push_energy,
+        "--push-impulse": push_impulse, "--push-angle": push_angle, "--push-per": push_per,
+        "--push-direction": push_direction, "--decay-fraction": decay_fraction,
+        "--target-period": target_period, "--rtol": rtol})
+    if averaged and "--history-file" in files:
+        raise InvalidInput("--history-file", str(files["--history-file"][0]),
+                           "no history file with --averaged (it has no time history)")
     d = _design_or_none(design, length, mass, inertia, com_distance, gravity)
     ctx = (d.context if d is not None else "general") if context is None \
         else context.strip().lower()
@@ -419,26 +520,15 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
                                                               "angular_velocity",
                                                               "--angular-speed")
     T = opt.positive_time(duration, "--duration") if duration is not None else None
-    n = None
-    if cycles is not None:
-        value, unit = split_magnitude(cycles, "--cycles", "a whole number of cycles >= 1")
-        if unit or value < 1 or value != int(value) or value > 1e9:
-            raise InvalidInput("--cycles", cycles, "a whole number of cycles in [1, 1e9]")
-        n = int(value)
+    n = _cycles_value(cycles) if cycles is not None else None
     if T is None and n is None:
         n = _DEFAULT_CYCLES
     target = (opt.positive_time(target_period, "--target-period")
               if target_period is not None else None)
-    tol = 1e-12
-    if rtol is not None:
-        tol = parse_quantity(rtol, "fraction", "--rtol", minimum=1e-14, maximum=1e-3,
-                             allowed="a relative tolerance in [1e-14, 1e-3]")
+    tol = 1e-12 if rtol is None else _rtol_value(rtol)
     extra = {}
     if decay_fraction is not None:
-        extra["decay_fraction"] = parse_quantity(
-            decay_fraction, "fraction", "--decay-fraction", minimum=0.0, maximum=1.0,
-            include_min=False, include_max=False,
-            allowed="a fraction in (0, 1) of the start amplitude, e.g. '10 %' or 0.1")
+        extra["decay_fraction"] = _decay_value(decay_fraction)
     if averaged and extra:
         raise InvalidInput("--decay-fraction", decay_fraction, "the full integrator (no "
                            "--averaged)", "the averaged model reports no decay time")
@@ -460,10 +550,7 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
                            drive=pushes[0] if pushes else None, drives=others,
                            target_period=target)
         report = averaged_report(res, ctx)
-        for name, (fpath, fkind) in files.items():
-            if name == "--history-file":
-                raise InvalidInput("--history-file", str(fpath), "no history file with "
-                                   "--averaged (it has no time history)")
+        for name, (fpath, fkind) in files.items():   # only --cycles-file (checked above)
             if fkind == "csv":
                 res.write_cycles_csv(fpath, force=force)
             else:

@@ -48,15 +48,19 @@ __all__ = [
     "FRICTION_TORQUE",
     "DenseStep",
     "HermiteStep",
+    "HermiteSteps",
     "Params",
     "energy",
     "energy_array",
     "find_root",
+    "find_roots",
     "friction_torque_array",
     "hermite_step",
+    "hermite_steps",
     "holding",
     "ledger_names",
     "make_rhs",
+    "make_rhs_array",
     "other_torque_array",
     "reaction_array",
     "replay_step",
@@ -104,8 +108,9 @@ def ledger_names(p: Params) -> list[str]:
 
 def make_rhs(p: Params, s: float, out: np.ndarray):
     """The right-hand side f(t, y) for sliding direction ``s`` (+1/-1; ignored without
-    friction). It writes into ``out`` and returns it (the integrator copies it), and it
-    never raises: a failure is reported through ``rhs.failed`` and the caller stops."""
+    friction). It writes into ``out`` (a float array) and returns it (the integrator
+    copies it), and it never raises: a failure is reported through ``rhs.state`` and the
+    caller stops."""
     sin, cos, sqrt = math.sin, math.cos, math.sqrt
     I, M, _m, d, g = p.inertia, p.restoring, p.mass, p.com, p.gravity
     w0 = p.w0
@@ -128,8 +133,10 @@ def make_rhs(p: Params, s: float, out: np.ndarray):
     pivots = tuple((int(ax), float(a) * float(w) ** 2, float(w), float(ph))
                    for ax, a, w, ph in p.pivots)
     state = {"failed": False}
+    # element writes through a memoryview of ``out`` cost less than numpy's own
+    o = memoryview(out)
     if not (mode or torques or pivots):
-        return _free_rhs(p, out, state, i_c, i_d)
+        return _free_rhs(p, out, o, state, i_c, i_d)
 
     def rhs(t, y):
         try:
@@ -145,7 +152,7 @@ def make_rhs(p: Params, s: float, out: np.ndarray):
             for amp, w, ph in torques:
                 q = amp * cos(w * t + ph)
                 B += q
-                out[k] = q * om * inv_e
+                o[k] = q * om * inv_e
                 k += 1
             ax = ay = 0.0
             for axis, acc, w, ph in pivots:
@@ -157,29 +164,29 @@ def make_rhs(p: Params, s: float, out: np.ndarray):
                     ax += a
                     q = -m_g * a * C
                 B += q
-                out[k] = q * om * inv_e
+                o[k] = q * om * inv_e
                 k += 1
             if c:
                 q = c * om
                 B -= q
-                out[i_c] = q * om * inv_e
+                o[i_c] = q * om * inv_e
             if D:
                 q = D * om * abs(om)
                 B -= q
-                out[i_d] = q * om * inv_e
+                o[i_d] = q * om * inv_e
             if mode == 1:
                 gy = ay + g
                 N = ax * S - gy * C - d * om * om
                 Q = ax * C + gy * S + d_i * B
                 f = -s * cf * (sqrt(Q * Q + one_e2 * N * N) - s * e * Q) / one_e2
                 B += f
-                out[i_f] = -f * om * inv_e
+                o[i_f] = -f * om * inv_e
             elif mode == 2:
                 f = -s * cf
                 B += f
-                out[i_f] = -f * om * inv_e
-            out[0] = om
-            out[1] = B * inv_iw
+                o[i_f] = -f * om * inv_e
+            o[0] = om
+            o[1] = B * inv_iw
         except (ArithmeticError, ValueError, TypeError):
             state["failed"] = True
             out[:] = 0.0
@@ -189,7 +196,7 @@ def make_rhs(p: Params, s: float, out: np.ndarray):
     return rhs
 
 
-def _free_rhs(p: Params, out, state, i_c, i_d):
+def _free_rhs(p: Params, out, o, state, i_c, i_d):
     """The lean right-hand side without friction or drives (most of the long runs)."""
     sin = math.sin
     w0 = p.w0
@@ -201,19 +208,35 @@ def _free_rhs(p: Params, out, state, i_c, i_d):
         if p.linear:
             def rhs(t, y):
                 th, w = y.tolist()
-                out[0] = w0 * w
-                out[1] = -w0 * th
+                o[0] = w0 * w
+                o[1] = -w0 * th
                 return out
         else:
             def rhs(t, y):
                 try:
                     th, w = y.tolist()
-                    out[0] = w0 * w
-                    out[1] = -w0 * sin(th)
+                    o[0] = w0 * w
+                    o[1] = -w0 * sin(th)
                 except (ArithmeticError, ValueError, TypeError):
                     state["failed"] = True
                     out[:] = 0.0
                 return out
+    elif c and D and not p.linear:
+        # viscous and air drag together, the usual real case: no branches left
+        def rhs(t, y):
+            try:
+                yl = y.tolist()
+                om = w0 * yl[1]
+                pv = c * om
+                pd = D * om * abs(om)
+                o[0] = om
+                o[1] = (-M * sin(yl[0]) - pv - pd) * inv_iw
+                o[i_c] = pv * om * inv_e
+                o[i_d] = pd * om * inv_e
+            except (ArithmeticError, ValueError, TypeError):
+                state["failed"] = True
+                out[:] = 0.0
+            return out
     else:
         linear = bool(p.linear)
 
@@ -224,12 +247,12 @@ def _free_rhs(p: Params, out, state, i_c, i_d):
                 om = w0 * yl[1]
                 pv = c * om
                 pd = D * om * abs(om)
-                out[0] = om
-                out[1] = (-M * (th if linear else sin(th)) - pv - pd) * inv_iw
+                o[0] = om
+                o[1] = (-M * (th if linear else sin(th)) - pv - pd) * inv_iw
                 if i_c:
-                    out[i_c] = pv * om * inv_e
+                    o[i_c] = pv * om * inv_e
                 if i_d:
-                    out[i_d] = pd * om * inv_e
+                    o[i_d] = pd * om * inv_e
             except (ArithmeticError, ValueError, TypeError):
                 state["failed"] = True
                 out[:] = 0.0
@@ -466,4 +489,180 @@ def find_root(fun, x0: float, x1: float, f0: float, f1: float) -> float:
             if side == -1:
                 f1 *= 0.5
             side = -1
+    return x
+
+
+def make_rhs_array(p: Params, s: float):
+    """The right-hand side of :func:`make_rhs` for many states at once: ``f(t, Y)`` with
+    ``t`` of shape (k,) and ``Y`` of shape (n, k) returns an (n, k) array (the same
+    formulas, elementwise; used to locate the events of many steps in one pass)."""
+    I, M, d, g = p.inertia, p.restoring, p.com, p.gravity
+    w0 = p.w0
+    inv_iw = 1.0 / (I * w0)
+    inv_e = 1.0 / p.e_ref
+    m_g = M / g
+    c, D = p.viscous, p.drag
+    mode = p.friction_mode
+    cf = p.kinetic
+    e = cf * d / I if mode == FRICTION_REACTION else 0.0
+    one_e2 = 1.0 - e * e
+    d_i = d / I
+    names = ledger_names(p)
+    i_c = 2 + names.index("viscous") if c else 0
+    i_d = 2 + names.index("drag") if D else 0
+    i_f = 2 + names.index("friction") if mode else 0
+    i_drive = 2 + len(names) - len(p.torques) - len(p.pivots)
+    n = 2 + len(names)
+    free = not (mode or p.torques or p.pivots)
+
+    def rhs(t, Y):
+        t = np.asarray(t, dtype=float)
+        Y = np.asarray(Y, dtype=float)
+        out = np.zeros((n,) + Y.shape[1:])
+        th = Y[0]
+        if free:
+            # the operations of _free_rhs, in its order (the same values to the bit)
+            S = th if p.linear else np.sin(th)
+            if not (c or D):
+                out[0] = w0 * Y[1]
+                out[1] = -w0 * S
+                return out
+            om = w0 * Y[1]
+            pv = c * om
+            pd = D * om * np.abs(om)
+            out[0] = om
+            out[1] = (-M * S - pv - pd) * inv_iw
+            if i_c:
+                out[i_c] = pv * om * inv_e
+            if i_d:
+                out[i_d] = pd * om * inv_e
+            return out
+        om = Y[1] * w0
+        if p.linear:
+            S, C = th, 1.0
+        else:
+            S, C = np.sin(th), np.cos(th)
+        B = -M * S
+        k = i_drive
+        for amp, w, ph in p.torques:
+            q = amp * np.cos(w * t + ph)
+            B = B + q
+            out[k] = q * om * inv_e
+            k += 1
+        ax = ay = 0.0
+        for axis, a, w, ph in p.pivots:
+            acc = -(a * w ** 2) * np.cos(w * t + ph)
+            if axis:
+                ay = ay + acc
+                q = -m_g * acc * S
+            else:
+                ax = ax + acc
+                q = -m_g * acc * C
+            B = B + q
+            out[k] = q * om * inv_e
+            k += 1
+        if c:
+            q = c * om
+            B = B - q
+            out[i_c] = q * om * inv_e
+        if D:
+            q = D * om * np.abs(om)
+            B = B - q
+            out[i_d] = q * om * inv_e
+        if mode == FRICTION_REACTION:
+            gy = ay + g
+            N = ax * S - gy * C - d * om * om
+            Q = ax * C + gy * S + d_i * B
+            f = -s * cf * (np.sqrt(Q * Q + one_e2 * N * N) - s * e * Q) / one_e2
+            B = B + f
+            out[i_f] = -f * om * inv_e
+        elif mode == FRICTION_TORQUE:
+            f = -s * cf
+            B = B + f
+            out[i_f] = -f * om * inv_e
+        out[0] = om
+        out[1] = B * inv_iw
+        return out
+
+    return rhs
+
+
+class HermiteSteps:
+    """Quintic Hermite interpolants of many steps at once (the :class:`HermiteStep` of each,
+    built the same way): ``coef`` has shape (6, n, k) for n components and k steps."""
+
+    __slots__ = ("coef", "h", "t_a")
+
+    def __init__(self, t_a, h, coef):
+        self.t_a, self.h, self.coef = t_a, h, coef
+
+    def take(self, idx) -> HermiteSteps:
+        """The interpolants of the steps ``idx``."""
+        return HermiteSteps(self.t_a[idx], self.h[idx], self.coef[:, :, idx])
+
+    def component(self, j: int, x):
+        c0, c1, c2, c3, c4, c5 = self.coef[:, j]
+        return c0 + x * (c1 + x * (c2 + x * (c3 + x * (c4 + x * c5))))
+
+    def slope(self, j: int, x):
+        """d component / d x."""
+        _, c1, c2, c3, c4, c5 = self.coef[:, j]
+        return c1 + x * (2.0 * c2 + x * (3.0 * c3 + x * (4.0 * c4 + x * 5.0 * c5)))
+
+    def value(self, x):
+        """Every component at x (shape (k,)): an (n, k) array."""
+        c0, c1, c2, c3, c4, c5 = self.coef
+        return c0 + x * (c1 + x * (c2 + x * (c3 + x * (c4 + x * c5))))
+
+
+def hermite_steps(rhs_array, t_a, Y_a, t_b, Y_b, w0: float = 1.0) -> HermiteSteps:
+    """:func:`hermite_step` for k steps at once: ``t_a``, ``t_b`` of shape (k,), ``Y_a``,
+    ``Y_b`` of shape (n, k); ``rhs_array`` from :func:`make_rhs_array`."""
+    t_a = np.asarray(t_a, dtype=float)
+    t_b = np.asarray(t_b, dtype=float)
+    h = t_b - t_a
+    eps = np.minimum(1e-7 / w0, 1e-3 * h)
+
+    def ends(t, Y):
+        f = rhs_array(t, Y)
+        f2 = rhs_array(t + eps, Y + eps * f)
+        return f, (f2 - f) / eps
+
+    fa, ga = ends(t_a, Y_a)
+    fb, gb = ends(t_b, Y_b)
+    p0, p1 = Y_a, Y_b
+    v0, a0, v1, a1 = h * fa, (h * h) * ga, h * fb, (h * h) * gb
+    coef = np.array((p0, v0, 0.5 * a0,
+                     -10.0 * p0 - 6.0 * v0 - 1.5 * a0 + 10.0 * p1 - 4.0 * v1 + 0.5 * a1,
+                     15.0 * p0 + 8.0 * v0 + 1.5 * a0 - 15.0 * p1 + 7.0 * v1 - a1,
+                     -6.0 * p0 - 3.0 * v0 - 0.5 * a0 + 6.0 * p1 - 3.0 * v1 + 0.5 * a1))
+    return HermiteSteps(t_a, h, coef)
+
+
+def find_roots(fun, slope, f0, f1):
+    """Roots in [0, 1] of many smooth functions at once, each with f0 = fun(0) and
+    f1 = fun(1) of opposite signs, or f1 == 0 (the caller selects those): Newton's method
+    kept inside the shrinking sign bracket (bisection where a step would leave it), to the
+    last bits of x. ``fun(x)`` and ``slope(x)`` take and return arrays of shape (k,)."""
+    f0 = np.asarray(f0, dtype=float)
+    f1 = np.asarray(f1, dtype=float)
+    lo = np.zeros_like(f0)
+    hi = np.ones_like(f0)
+    pos0 = f0 > 0.0
+    active = f1 != 0.0
+    with np.errstate(divide="ignore", invalid="ignore"):
+        x = np.where(active, f0 / (f0 - f1), 1.0)
+        x = np.where(active & ~((x > 0.0) & (x < 1.0)), 0.5, x)
+        for _ in range(100):
+            fx = fun(x)
+            right = (fx > 0.0) == pos0         # the root lies above x
+            lo = np.where(active & right, x, lo)
+            hi = np.where(active & ~right, x, hi)
+            xn = x - fx / slope(x)
+            xn = np.where((xn > lo) & (xn < hi), xn, 0.5 * (lo + hi))
+            done = (fx == 0.0) | (np.abs(xn - x) <= 2e-16) | (hi - lo <= 4e-16)
+            x = np.where(active & ~(fx == 0.0), xn, x)
+            active = active & ~done
+            if not active.any():
+                break
     return x
