@@ -510,12 +510,18 @@ def decay_figure(result, *, name: str = "", revision: str = ""):
         ax.set_xlabel("time t [s]")
         ax.set_ylabel("amplitude |θ| at the turning point [deg]")
         top = float(np.max(np.abs(_deg(th)))) if th.size else 0.0
-        ax.set_ylim(0.0, 1.1 * top if top > 0 else 1.0)
+        low = float(np.min(np.abs(_deg(th)))) if th.size else 0.0
+        if top > 0 and low > 0.9 * top:
+            # a light decay (a clock: Q ~ 1e4): zoom on it instead of a flat line at the top
+            pad = max(0.1 * (top - low), 1e-6 * top)
+            ax.set_ylim(low - pad, top + pad)
+        else:
+            ax.set_ylim(0.0, 1.1 * top if top > 0 else 1.0)
         if t.size:
             ax.set_xlim(0.0, max(float(t[-1]), 1e-9))
         sec = ax.secondary_xaxis("top", functions=(lambda x: x / t0, lambda c: c * t0))
         sec.set_xlabel(f"time in small-angle periods t / T0 [-] (T0 = {t0:.6g} s)")
-        ax.legend(loc="upper right")
+        ax.legend(loc="best")
         _title(fig, name, revision, f"Amplitude decay over {s.cycles} cycles")
         facts = [f"status: {result.status}"]
         if s.q_last is not None:

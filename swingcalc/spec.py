@@ -200,7 +200,7 @@ def spec_rows(design) -> tuple:
             slack = loads.slack_angle_rad
             margin_rows += [
                 SpecRow(f"{at}slack_margin_rad", "margins",
-                        f"slack margin: 90 deg - amplitude {tag} (negative: goes slack)",
+                        f"slack margin (90 deg - A) {tag}",
                         SLACK_FREE_AMPLITUDE_RAD - a, "angle"),
                 SpecRow(f"{at}slack_angle_rad", "margins", f"slack angle {tag}",
                         "never (taut throughout)" if slack is None else slack,

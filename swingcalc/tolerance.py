@@ -738,8 +738,9 @@ def analyse(design: Design, outputs=None, tolerances=None, samples: int = 100_00
     loads = [k for k in keys if k not in PERIOD_OUTPUTS]
     shape = ("normal, +-3 sigma at the band ends, truncated there" if distribution == "normal"
              else "uniform over the band")
-    method = (f"Inputs independent, {shape}. Worst case: the wider of the linear sum "
-              "and the exact values at the two sign corners. RSS: first-order "
+    method = (f"Inputs independent, {shape}. Worst case: the exact values at the two "
+              "sign corners (also the linear sum where it is wider and the output is not "
+              "monotone along some band). RSS: first-order "
               "propagation, sqrt(sum c_i^2). Monte Carlo: seeded numpy generator, samples "
               "evaluated on a full second-order response surface (central differences of "
               f"{surface} exact evaluations), checked on {len(exact_checks)} samples "

@@ -161,3 +161,16 @@ def test_decay_fraction_gives_the_textbook_decay_time():
 ])
 def test_push_and_decay_options_are_checked(args, words):
     assert_bad(args, *words)
+
+
+def test_a_bad_value_is_named_before_a_missing_partner_option():
+    """--amplitude 500 is out of range whatever else is missing (--torque without its
+    frequency): the value check comes first."""
+    assert_bad(("simulate", "--torque", "1", "--amplitude", "500"), "--amplitude")
+
+
+def test_averaged_with_a_history_file_is_refused_before_anything_is_written(tmp_path):
+    c, h = tmp_path / "c.csv", tmp_path / "h.csv"
+    assert_bad(("simulate", "--averaged", "--cycles", "10", "--cycles-file", c,
+                "--history-file", h), "--history-file")
+    assert not c.exists() and not h.exists()

@@ -206,3 +206,13 @@ def test_help_lists_the_command():
     assert code == 0 and "spec" in out
     out, _ = run_ok("spec", "--help")
     assert "--units" in out and "inch-pound" in out
+
+
+def test_a_format_that_contradicts_the_file_name_is_refused(tmp_path):
+    """CSV into a file called .svg is a mistake; a .txt file takes any text format."""
+    out = tmp_path / "x.svg"
+    assert_bad(("spec", "--format", "csv", "-o", out), "--format", "svg")
+    assert not out.exists()
+    txt = tmp_path / "x.txt"
+    run_ok("spec", "--format", "csv", "-o", txt)
+    assert ",mass_kg\n" in txt.read_text()

@@ -434,3 +434,15 @@ def test_import_of_plots_does_not_load_matplotlib():
                              Path(plots.__file__).parents[1])))
     assert out.returncode == 0, out.stderr
     assert out.stdout.strip() == "False"
+
+
+def test_a_format_that_contradicts_the_file_name_is_refused(tmp_path):
+    out = tmp_path / "q.png"
+    assert_bad(("plot", "period", "--format", "svg", "-o", out), "--format", "png")
+    assert not out.exists()
+
+
+def test_the_phase_portrait_names_its_own_sample_limit(tmp_path):
+    out = tmp_path / "p.png"
+    assert_bad(("plot", "phase", "--samples", "5", "-o", out), "--samples", "[21, 20001]")
+    assert not out.exists()

@@ -164,6 +164,11 @@ def output_format(fmt: str | None, output: Path | None, extra: dict | None = Non
         if word not in formats:
             raise InvalidInput("--format", fmt, ", ".join(formats),
                                f"unknown format{suggest(word, formats)}")
+        named = None if output is None else suffixes.get(output.suffix.lower())
+        if named not in (None, "table", word):
+            # CSV in a file called .svg is a mistake (a .txt file takes any text format)
+            raise InvalidInput("--format", fmt, f"{named}, as the --output name says, or "
+                               "another file name", f"the file name says {named}")
         return word
     if output is None:
         return "table"

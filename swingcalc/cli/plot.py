@@ -49,6 +49,11 @@ def _output(output: str | None, fmt: str | None, force: bool) -> tuple[Path, str
         if word not in _FORMATS.values():
             raise InvalidInput("--format", fmt, "png or svg",
                                f"unknown plot format{suggest(word, _FORMATS.values())}")
+        named = _FORMATS.get(path.suffix.lower())
+        if named is not None and named != word:
+            raise InvalidInput("--format", fmt, f"{named}, as the --output name says, or a "
+                               f"file name ending in .{word}",
+                               f"the file name says {named}")
     else:
         word = _FORMATS.get(path.suffix.lower())
         if word is None:
@@ -124,7 +129,9 @@ def _run(kind, design, amplitude, low, high, cycles, samples, gravity, fmt, outp
         raise InvalidInput("--to" if high is not None else "--from", high or low,
                            "--from below --to (default range 0 to 170 deg)", "empty range")
     n_cycles = opt.count(cycles, "--cycles", 1, 100_000) if cycles is not None else 100
-    n = opt.count(samples, "--samples", 3, 20_001) if samples is not None else None
+    # the phase portrait needs enough points per orbit to show its shape
+    n = (opt.count(samples, "--samples", 21 if word == "phase" else 3, 20_001)
+         if samples is not None else None)
     d = a._design(design, amplitude=amplitude, gravity=gravity)
     start = None
     if amplitude is not None:

@@ -176,6 +176,9 @@ def spec_sheet(design, system: str = "si") -> SpecSheet:
     notes = [("Small-angle error is (T0 - T)/T: negative, the linear model is short. Two "
               "beats per period. Loads are peaks over one conservative swing at each working "
               "amplitude.")]
+    if design.suspension.flexible:
+        notes.append("Slack margin: 90 deg less the amplitude A; below 0 the suspension "
+                     "goes slack during the swing (at the slack angle shown).")
     if design.context == "clock":
         notes.append("Rates are positive when the clock gains.")
     notes[:0] = [f"WARNING: {w}" for w in spec_warnings(design)]
