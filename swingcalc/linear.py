@@ -28,6 +28,8 @@ __all__ = [
     "peak_tension_error",
     "phase_error",
     "clock_rate_error",
+    "rate_against",
+    "beats_per_hour",
     "max_amplitude_for_period_error",
     "max_period_error_tolerance",
     "SmallAngleCheck",
@@ -199,6 +201,18 @@ def clock_rate_error(amplitude):
     a, scalar = amplitudes(amplitude)
     e = _excess(a)
     return finalize(-SECONDS_PER_DAY * e / (1.0 + e), scalar)
+
+
+def rate_against(period, target):
+    """Rate [s/day] of a clock whose pendulum swings with ``period`` [s] when its dial
+    counts ``target`` [s] per swing: 86400 (target / period - 1), positive when it gains."""
+    return SECONDS_PER_DAY * (target / period - 1.0)
+
+
+def beats_per_hour(period):
+    """Beats per hour of a pendulum with ``period`` [s]: two beats (ticks) per period, as
+    clockmakers count them (common practice)."""
+    return 2.0 * 3600.0 / period
 
 
 def max_period_error_tolerance(relative_to="exact") -> float:

@@ -595,10 +595,8 @@ def _period_band(design):
     tols = tuple(t for t in design.tolerances if not t.path.startswith("swing.amplitude"))
     if not tols:
         return None, ""
-    try:
-        from .tolerance import linear_bands
-    except ImportError:          # the tolerance core is not there yet
-        return None, ""
+    from .tolerance import linear_bands
+
     bands = linear_bands(design, lambda d: {"T0": d.pendulum.small_angle_period_s}, tols)
     band = bands.get("T0")
     if band is None:

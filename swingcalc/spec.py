@@ -20,13 +20,16 @@ import math
 from dataclasses import dataclass
 
 from .compound import thermal_rate
-from .constants import SECONDS_PER_DAY, SECONDS_PER_HOUR
-from .linear import clock_rate_error, small_angle_period_error
+from .linear import (
+    beats_per_hour,
+    clock_rate_error,
+    rate_against,
+    small_angle_period_error,
+)
 from .loads import impact, swing_loads
 from .sizing import period_at, rating_adjustment, sensitivities
 
 __all__ = [
-    "BEATS_PER_PERIOD",
     "SECTIONS",
     "SLACK_FREE_AMPLITUDE_RAD",
     "SpecRow",
@@ -35,10 +38,6 @@ __all__ = [
     "spec_values",
     "spec_warnings",
 ]
-
-#: Beats in one period of a clock pendulum: one each way (common practice for clocks:
-#: a seconds pendulum, T = 2 s, beats once a second, 3600 beats per hour).
-BEATS_PER_PERIOD = 2.0
 
 #: Largest amplitude [rad] a flexible suspension swings through without going slack:
 #: at the turning point omega = 0 and the payload end carries m_p g cos A
@@ -219,7 +218,7 @@ def spec_rows(design) -> tuple:
             if design.target_period_s is not None:
                 clock_rows.append(SpecRow(
                     f"{at}rate_vs_target_s_per_day", "clock", f"rate against the target {tag}",
-                    SECONDS_PER_DAY * (design.target_period_s / t - 1.0), "rate"))
+                    rate_against(t, design.target_period_s), "rate"))
     # the bottom speed and energy that carry the body over the top (a flexible suspension
     # also staying taut there: more than the rigid arm's 2 M g d)
     margin_rows[:0] = [
@@ -256,7 +255,7 @@ def _beat_row(at: str, tag: str, period: float, clock: bool) -> SpecRow:
     """A clock's beats per hour (two beats per period); for anything else the frequency."""
     if clock:
         return SpecRow(f"{at}beats_per_hour", "period", f"beats per hour {tag}",
-                       BEATS_PER_PERIOD * SECONDS_PER_HOUR / period, "beat_rate")
+                       beats_per_hour(period), "beat_rate")
     return SpecRow(f"{at}frequency_Hz", "period", f"frequency {tag}", 1.0 / period,
                    "frequency")
 

@@ -537,7 +537,7 @@ def _check_outputs(design: Design, outputs) -> tuple:
 
 
 def _evaluator(outputs: tuple, reference: float):
-    from .constants import SECONDS_PER_DAY
+    from .linear import rate_against
     from .loads import peak
     from .sizing import period_at
 
@@ -546,7 +546,7 @@ def _evaluator(outputs: tuple, reference: float):
     def evaluate(d: Design) -> dict:
         pend = d.pendulum
         t = period_at(pend, d.amplitudes_rad[0])
-        out = {"period_s": t, "rate_s_per_day": SECONDS_PER_DAY * (reference / t - 1.0)}
+        out = {"period_s": t, "rate_s_per_day": rate_against(t, reference)}
         if loads:
             a, points = max(d.amplitudes_rad), d.points_dict()
             for k in loads:

@@ -20,8 +20,6 @@ from . import options as opt
 
 __all__ = ["register"]
 
-# The plot kinds (as in swingcalc.plots.KINDS, which is not imported at start-up).
-_KINDS = ("period", "phase", "loads", "decay")
 _FORMATS = {".png": "png", ".svg": "svg"}
 _OUTPUT_ALLOWED = "a file ending in .png or .svg (or give --format png|svg)"
 
@@ -31,9 +29,11 @@ def _text(name: str, metavar: str, help_text: str):
 
 
 def _kind(text: str) -> str:
+    from ..plots import KINDS  # here: the command line starts without the plot module
+
     word = text.strip().lower()
-    if word not in _KINDS:
-        raise InvalidInput("KIND", text, ", ".join(_KINDS), f"unknown plot{suggest(word, _KINDS)}")
+    if word not in KINDS:
+        raise InvalidInput("KIND", text, ", ".join(KINDS), f"unknown plot{suggest(word, KINDS)}")
     return word
 
 

@@ -14,17 +14,18 @@ from .designs import DesignArg, _run
 
 __all__ = ["register"]
 
-_DISTRIBUTIONS = ("normal", "uniform")
 _NO_TOLERANCES = ("a [tolerances] section in the design file, one +- half-width per input, "
                   "e.g. [tolerances] \"part.bob.centre\" = \"0.2 mm\", "
                   "\"environment.temperature\" = \"5 K\", \"part.bob.mass\" = \"1 %\"")
 
 
 def _distribution(text: str) -> str:
+    from ..tolerance import DISTRIBUTIONS  # here: not loaded at start-up
+
     word = text.strip().lower()
-    if word not in _DISTRIBUTIONS:
-        raise InvalidInput("--distribution", text, " or ".join(_DISTRIBUTIONS),
-                           f"unknown distribution{suggest(word, _DISTRIBUTIONS)}")
+    if word not in DISTRIBUTIONS:
+        raise InvalidInput("--distribution", text, " or ".join(DISTRIBUTIONS),
+                           f"unknown distribution{suggest(word, DISTRIBUTIONS)}")
     return word
 
 

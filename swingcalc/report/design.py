@@ -10,7 +10,8 @@ import numpy as np
 
 from .. import clock_rate_error, harmonic_ratio, small_angle_period_error
 from ..compound import thermal_rate
-from ..constants import SECONDS_PER_DAY, SECONDS_PER_HOUR
+from ..constants import SECONDS_PER_DAY
+from ..linear import beats_per_hour, rate_against
 from ..loads import DEFAULT_SAMPLES, impact, swing_loads
 from ..sizing import (SUSPENSION, drop_angle_for_energy, drop_angle_for_speed, length_for_period,
                       max_amplitude_for_limit, period_at, position_for_period,
@@ -105,11 +106,11 @@ def design_report(design) -> Report:
         t = period_at(pend, a)
         zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
         row = [_deg_value(a), a, t, t / pend.small_angle_period_s,
-               small_angle_period_error(a), 2.0 * SECONDS_PER_HOUR / t]
+               small_angle_period_error(a), beats_per_hour(t)]
         if clock:
             row.append(clock_rate_error(a))
         if design.target_period_s is not None:
-            row.append(SECONDS_PER_DAY * (design.target_period_s / t - 1.0))
+            row.append(rate_against(t, design.target_period_s))
         row += [loads.peak("angular_speed_rad_s").value, loads.peak("reaction_N").value,
                 loads.peak("reaction_N").value / loads.weight_N,
                 loads.least_tension_N,

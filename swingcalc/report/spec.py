@@ -18,6 +18,7 @@ from dataclasses import dataclass
 
 from .cautions import cautions_for
 from .model import Column, Item, Report, Table, _plain
+from .units import KINDS as DISPLAY_KINDS
 from .units import SYSTEMS, display_unit, to_display
 
 __all__ = [
@@ -109,11 +110,6 @@ class SpecSheet:
 
 # A toleranced input's kind (swingcalc.quantity) -> its display kind here; kinds not
 # listed are shown in SI with the kind named.
-_INPUT_KINDS = {"length": "length", "mass": "mass", "density": "density",
-                "temperature": "temperature", "angle": "angle", "acceleration": "acceleration",
-                "inertia": "inertia", "time": "time", "fraction": "fraction"}
-
-
 def _tolerance_inputs(design) -> tuple:
     if not design.tolerances:
         return ()
@@ -129,7 +125,8 @@ def _tolerance_texts(design, system: str) -> tuple:
 
     out = []
     for tol, inp in zip(design.tolerances, inputs(design)):
-        kind = _INPUT_KINDS.get(inp.kind)
+        # a kind the display table has no row for (a torque, a volume) is shown in SI
+        kind = inp.kind if inp.kind in DISPLAY_KINDS else None
         if kind is None:
             half = f"{_number(inp.half_width, BAND_DIGITS)} (SI {inp.kind})"
         else:

@@ -15,10 +15,13 @@ __all__ = ["tolerance_report"]
 
 _DEG = 180.0 / math.pi
 # SI unit of each input kind, as the inputs table shows it next to the SI values.
-_KIND_UNITS = {"length": "m", "angle": "rad", "mass": "kg", "acceleration": "m/s^2",
-               "time": "s", "temperature": "K", "density": "kg/m^3",
-               "linear_density": "kg/m", "pressure": "Pa", "torque": "N m",
-               "inertia": "kg m^2", "volume": "m^3", "expansion": "1/K", "fraction": ""}
+def _si_unit(kind: str) -> str:
+    """The SI unit an input of ``kind`` is stored in (as the design file reads it)."""
+    from ..quantity import KINDS
+
+    return KINDS[kind].identity[0] if kind in KINDS else ""
+
+
 _PERIOD_LABELS = {"period_s": ("period at the working amplitude", "s")}
 _BODY_LABELS = {"reaction_N": ("peak pivot load", "N"),
                 "arm_tension_N": ("peak pull along the arm", "N"),
@@ -73,7 +76,7 @@ def tolerance_report(design, outputs=None, samples: int = 100_000, seed: int = 0
          Column("nominal", "nominal", fmt=".8g"), Column("half_width", "+- half-width",
                                                           fmt=".4g"),
          Column("unit", "unit")),
-        tuple((i.path, i.kind, i.nominal, i.half_width, _KIND_UNITS.get(i.kind, ""))
+        tuple((i.path, i.kind, i.nominal, i.half_width, _si_unit(i.kind))
               for i in res.inputs))
 
     cols = (Column("output", "output"), Column("label", "quantity", in_text=False),
