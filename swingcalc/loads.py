@@ -22,7 +22,7 @@ from .compound import CompoundPendulum
 from .errors import InvalidInput
 
 __all__ = ["Peak", "PointMotion", "SwingLoads", "ImpactResult", "swing_loads", "peak",
-           "point_motion",
+           "point_motion", "payload_tension", "first_slack",
            "impact", "over_top_speed", "DEFAULT_SAMPLES"]
 
 #: Angles in a loads table over the full swing -A..A (odd, so the bottom is a sample).
@@ -227,6 +227,31 @@ def _payload(pend: CompoundPendulum) -> tuple[float, float]:
 def _payload_tension(pend: CompoundPendulum, theta, omega2):
     m_p, d_p = _payload(pend)
     return m_p * (d_p * omega2 + pend.gravity_m_s2 * np.cos(theta))
+
+
+def payload_tension(pend: CompoundPendulum, angle, angular_velocity):
+    """Tension [N] a flexible suspension carries at its payload end in the state (angle
+    [rad], angular velocity [rad/s]): m_p (d_p omega^2 + g cos theta), the payload's
+    centripetal need plus its weight along the line (fixed pivot; see swing_loads).
+    Negative where the line would have to push: it goes slack there."""
+    theta = np.asarray(angle, dtype=float)
+    omega = np.asarray(angular_velocity, dtype=float)
+    return _payload_tension(pend, theta, omega * omega)
+
+
+def first_slack(pend: CompoundPendulum, time, angle, angular_velocity):
+    """(time [s], angle [rad]) of the first state of a time history where a flexible
+    suspension would go slack (payload-end tension below zero), or None: also when the
+    suspension is rigid. For a simulated run, whose model keeps the line taut: past that
+    time its motion and loads are not those of the real body."""
+    if not pend.body.suspension.flexible:
+        return None
+    tension = payload_tension(pend, angle, angular_velocity)
+    bad = np.flatnonzero(tension < 0.0)
+    if bad.size == 0:
+        return None
+    i = int(bad[0])
+    return float(np.asarray(time)[i]), float(np.asarray(angle)[i])
 
 
 def swing_loads(pend: CompoundPendulum, amplitude: float, points=None,

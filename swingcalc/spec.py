@@ -256,7 +256,7 @@ def _beat_row(at: str, tag: str, period: float, clock: bool) -> SpecRow:
     if clock:
         return SpecRow(f"{at}beats_per_hour", "period", f"beats per hour {tag}",
                        beats_per_hour(period), "beat_rate")
-    return SpecRow(f"{at}frequency_Hz", "period", f"frequency {tag}", 1.0 / period,
+    return SpecRow(f"{at}frequency_hz", "period", f"frequency {tag}", 1.0 / period,
                    "frequency")
 
 

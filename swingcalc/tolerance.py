@@ -516,8 +516,11 @@ def output_names(design: Design) -> tuple:
 
 
 def default_outputs(design: Design) -> tuple:
-    """The period and the rate; for any design but a clock also the peak pivot load."""
-    return PERIOD_OUTPUTS + (() if design.context == "clock" else ("reaction_N",))
+    """A clock's period and rate; for any other design its period and peak pivot load
+    (a rate in s/day means nothing for a gate or a damper)."""
+    if design.context == "clock":
+        return PERIOD_OUTPUTS
+    return ("period_s", "reaction_N")
 
 
 def _check_outputs(design: Design, outputs) -> tuple:

@@ -174,3 +174,18 @@ def test_averaged_with_a_history_file_is_refused_before_anything_is_written(tmp_
     assert_bad(("simulate", "--averaged", "--cycles", "10", "--cycles-file", c,
                 "--history-file", h), "--history-file")
     assert not c.exists() and not h.exists()
+
+
+def test_a_run_that_would_slacken_the_chains_says_so():
+    """A point mass on a line released at A: the line pulls m g cos A at the turning point
+    (textbook circular motion), negative past 90 deg, so a seat on chains started at
+    120 deg is slack at once; at 30 deg it stays taut (tension >= m g cos 30 deg)."""
+    from swingcalc import examples
+
+    seat = str(examples.path("playground_seat.toml"))
+    out, _ = run_ok("simulate", seat, "--amplitude", "120", "--cycles", "2")
+    assert "would go slack at t = 0 s" in out
+    out, _ = run_ok("simulate", seat, "--amplitude", "30", "--cycles", "2")
+    assert "slack" not in out.split("CAUTION")[0]
+    out, _ = run_ok("simulate", seat, "--averaged", "--amplitude", "100", "--cycles", "2")
+    assert "past 90 deg the suspension goes slack" in out

@@ -81,7 +81,7 @@ def test_every_bundled_design_gives_a_sensible_sheet(name):
     assert any(k.endswith("clock_rate_s_per_day") for k in rows) == clock
     # beats for a clock, the frequency for anything else
     beat = ("small_angle_beats_per_hour", "amplitude_1.beats_per_hour")
-    freq = ("small_angle_frequency_Hz", "amplitude_1.frequency_Hz")
+    freq = ("small_angle_frequency_hz", "amplitude_1.frequency_hz")
     for key in beat if clock else freq:
         assert key in rows and rows[key][2] != "", key
     assert not set(freq if clock else beat) & set(rows)

@@ -284,3 +284,26 @@ def test_rows_past_the_slack_angle_are_flagged_and_left_out_of_the_peaks():
     assert np.all(loads.payload_tension_N[~past] >= -1e-12)
     for p in loads.peaks:
         assert abs(p.angle_rad) <= loads.slack_angle_rad * (1 + 1e-15), p.quantity
+
+
+def test_first_slack_of_a_history_on_a_line_and_none_on_a_rigid_arm():
+    """Payload-end tension m (L omega^2 + g cos theta) of a point mass on a line (textbook
+    circular motion): at theta = 100 deg it is negative below omega^2 = -g cos(theta)/L,
+    positive above; a rigid arm never goes slack."""
+    import math
+
+    import numpy as np
+
+    from swingcalc.loads import first_slack, payload_tension
+
+    L, g = 2.0, 9.80665
+    line = compound_pendulum(assemble(*point_bob(L, 1.0, "flexible")), g, 0.0)
+    th = math.radians(100.0)
+    w_edge = math.sqrt(-g * math.cos(th) / L)
+    assert payload_tension(line, th, w_edge) == pytest.approx(0.0, abs=1e-12)
+    t = np.array([0.0, 1.0, 2.0])
+    assert first_slack(line, t, [0.1, th, th], [0.0, 1.01 * w_edge, 0.99 * w_edge]) == (
+        2.0, th)
+    assert first_slack(line, t, [0.1, 0.2, 0.3], [0.0, 0.0, 0.0]) is None
+    rigid = compound_pendulum(assemble(*point_bob(L, 1.0, "rigid")), g, 0.0)
+    assert first_slack(rigid, t, [th] * 3, [0.0] * 3) is None

@@ -378,7 +378,8 @@ def test_rate_is_against_the_target_period_or_else_the_nominal_period():
     assert clock.reference == "target period" and clock.reference_period_s == 2.0
     assert clock.output("rate_s_per_day").nominal == pytest.approx(86400 * (2.0 / t - 1),
                                                                    rel=1e-12)
-    point = analyse(_small_point('"pendulum.length" = "1 mm"\n'), samples=1000)
+    point = analyse(_small_point('"pendulum.length" = "1 mm"\n'),
+                    outputs=["period_s", "rate_s_per_day"], samples=1000)
     assert point.reference == "nominal period"
     assert point.output("rate_s_per_day").nominal == 0.0
     # first order: d(rate) = -86400 dT / T
@@ -480,3 +481,10 @@ def test_an_amplitude_band_reaching_the_inverted_position_is_refused():
     d = _small_point('"swing.amplitude" = "15 deg"\n', amplitude="170 deg")
     with pytest.raises(InvalidInput, match="tolerance on swing.amplitude.*inverted"):
         inputs(d)
+
+
+def test_default_outputs_are_a_clocks_rate_or_anything_elses_pivot_load():
+    assert analyse(_clock(), samples=100).outputs[1].key == "rate_s_per_day"
+    keys = [o.key for o in analyse(_small_point('"pendulum.length" = "1 mm"\n'),
+                                   samples=100).outputs]
+    assert keys == ["period_s", "reaction_N"]

@@ -549,7 +549,15 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
                            duration=T if n is None else None,
                            drive=pushes[0] if pushes else None, drives=others,
                            target_period=target)
-        report = averaged_report(res, ctx)
+        extra_warnings = []
+        if d is not None and d.suspension.flexible:
+            top = float(res.amplitude(res.energy_turn_J).max())
+            if top > 0.5 * math.pi:
+                extra_warnings.append(
+                    f"the amplitude reaches {math.degrees(top):.4g} deg: past 90 deg the "
+                    "suspension goes slack near the turning points, which this model does "
+                    "not follow; results from there on are not those of the real swing")
+        report = averaged_report(res, ctx, extra_warnings)
         for name, (fpath, fkind) in files.items():   # only --cycles-file (checked above)
             if fkind == "csv":
                 res.write_cycles_csv(fpath, force=force)
@@ -567,7 +575,18 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
                            rtol=tol, target_period=target, progress=bar, **extra)
     finally:
         bar.close()
-    report = simulation_report(res, ctx)
+    extra_warnings = []
+    if d is not None and d.suspension.flexible:
+        from ..loads import first_slack
+
+        h = res.history
+        slack = first_slack(d.pendulum, h.time_s, h.angle_rad, h.angular_velocity_rad_s)
+        if slack is not None:
+            extra_warnings.append(
+                f"the suspension would go slack at t = {slack[0]:.6g} s (angle "
+                f"{math.degrees(slack[1]):.4g} deg): the integrator keeps it taut, so the "
+                "motion and the loads from there on are not those of the real swing")
+    report = simulation_report(res, ctx, extra_warnings)
     for name, (fpath, fkind) in files.items():
         rep = cycles_report(res) if name == "--cycles-file" else history_report(res)
         write_atomic(fpath, render(rep, fkind), force=force, field=name)

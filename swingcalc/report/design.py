@@ -76,7 +76,8 @@ def design_report(design) -> Report:
             Column("period_s", "period T", "s", fmt="#.7g"),
             Column("period_ratio", "T / T0", "", fmt=".7f"),
             Column("small_angle_period_error_rel", "small-angle period error", **_PCT),
-            Column("beats_per_hour", "beats per hour", "", fmt="#.6g")]
+            Column("beats_per_hour", "beats per hour", "", fmt="#.6g") if clock else
+            Column("frequency_hz", "frequency", "Hz", fmt="#.6g")]
     if clock:
         cols.append(Column("clock_rate_s_per_day", "rate if regulated to T0", "s/day",
                            fmt="#.4g"))
@@ -106,7 +107,7 @@ def design_report(design) -> Report:
         t = period_at(pend, a)
         zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
         row = [_deg_value(a), a, t, t / pend.small_angle_period_s,
-               small_angle_period_error(a), beats_per_hour(t)]
+               small_angle_period_error(a), beats_per_hour(t) if clock else 1.0 / t]
         if clock:
             row.append(clock_rate_error(a))
         if design.target_period_s is not None:
@@ -126,8 +127,8 @@ def design_report(design) -> Report:
              fmt=".8g"),
         Item("weight_N", "weight (static pivot load)", pend.mass_kg * pend.gravity_m_s2, "N",
              fmt=".5g"),
-        Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top",
-             loads.over_top_speed_rad_s, "rad/s", fmt=".4g")]
+        Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top"
+             + (" taut" if flexible else ""), loads.over_top_speed_rad_s, "rad/s", fmt=".4g")]
     if design.environment.air:
         summary += [Item("air_period_shift_rel", "air's period shift (buoyancy + added mass)",
                          (1 + pend.buoyancy_period_shift_rel)
@@ -339,12 +340,13 @@ def loads_report(design, amplitude: float | None = None,
     summary = [Item("amplitude_rad", "amplitude", a, "deg", _DEG, fmt=amplitude_text),
                Item("period_s", "period", period_at(pend, a), "s", fmt=".8g"),
                Item("energy_J", "swing energy", loads.energy_J, "J", fmt=".6g"),
-               Item("separatrix_energy_J", "energy to go over the top", loads.separatrix_energy_J,
-                    "J", fmt=".6g"),
+               Item("separatrix_energy_J", "energy at the separatrix (inverted, at rest)",
+                    loads.separatrix_energy_J, "J", fmt=".6g"),
                Item("separatrix_margin", "separatrix margin 1 - E/E_sep", loads.separatrix_margin,
                     "", fmt=".4g"),
-               Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top",
-                    loads.over_top_speed_rad_s, "rad/s", fmt=".5g"),
+               Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top"
+                    + (" taut" if flexible else ""), loads.over_top_speed_rad_s, "rad/s",
+                    fmt=".5g"),
                Item("weight_N", "weight (static pivot load)", loads.weight_N, "N", fmt=".6g")]
     zero = loads.slack_angle_rad if flexible else loads.compression_angle_rad
     summary.append(Item("slack_angle_rad" if flexible else "compression_angle_rad",
@@ -412,7 +414,7 @@ def tune_report(design, target: float, amplitude: float, part: str | None,
             summary.append(Item("centre_m", f"{sol.parts[0]} centre at temperature"
                                 if at != "length" else "suspension length at temperature",
                                 sol.centre_m, "mm", 1e3, ".10g"))
-        summary += [Item("move_m", "move (positive: away from the pivot)", sol.move_m, "mm",
+        summary += [Item("move_m", "move (positive: down the arm)", sol.move_m, "mm",
                         1e3, ".6g"),
                    Item("period_s", "period there, recomputed", sol.period_s, "s", fmt=".13g"),
                    Item("zero_amplitude_position_m", "position for the target at zero amplitude",

@@ -141,7 +141,7 @@ def _drive_items(drives) -> list:
     return items
 
 
-def simulation_report(result, context: str = "general") -> Report:
+def simulation_report(result, context: str = "general", extra_warnings=()) -> Report:
     """Summary, energy budget and a sample of the per-cycle table of a simulation."""
     s = result.summary
     e = result.energy
@@ -215,6 +215,7 @@ def simulation_report(result, context: str = "general") -> Report:
                  f"Per cycle (first and last {SAMPLE_ROWS} of {n})")
         tables.append(_table("cycles", title, cols, _sample_index(n)))
     warnings, notes = _messages(result)
+    warnings += list(extra_warnings)
     if s.over_the_top:
         warnings.append("the body went over the top: amplitudes are not defined there")
     notes += [("Q is that of the linear oscillator with the measured logarithmic decrement, "
@@ -248,7 +249,7 @@ def history_report(result) -> Report:
     return Report("simulate-history", "Time history", [], [], [t])
 
 
-def averaged_report(result, context: str = "general") -> Report:
+def averaged_report(result, context: str = "general", extra_warnings=()) -> Report:
     """Summary and a sample of the per-cycle table of the cycle-averaged model."""
     s = result.summary
     ang = {"unit": "deg", "scale": _DEG, "fmt": ".6g"}
@@ -263,13 +264,15 @@ def averaged_report(result, context: str = "general") -> Report:
                     **ang),
                Item("first_period_s", "first period", s.get("first_period_s"), "s",
                     fmt=".10g"),
-               Item("last_period_s", "last period", s.get("last_period_s"), "s", fmt=".10g"),
-               Item("last_rate_s_per_day", "rate at the end", s.get("last_rate_s_per_day"),
-                    "s/day", fmt=".5g"),
-               Item("mean_rate_s_per_day", "mean rate over the run",
-                    s.get("mean_rate_s_per_day"), "s/day", fmt=".5g"),
-               Item("accumulated_error_s", "accumulated time error",
-                    s.get("accumulated_error_s"), "s", fmt=".5g")]
+               Item("last_period_s", "last period", s.get("last_period_s"), "s", fmt=".10g")]
+    clock = context == "clock"
+    if clock:
+        summary += [Item("last_rate_s_per_day", "rate at the end", s.get("last_rate_s_per_day"),
+                         "s/day", fmt=".5g"),
+                    Item("mean_rate_s_per_day", "mean rate over the run",
+                         s.get("mean_rate_s_per_day"), "s/day", fmt=".5g"),
+                    Item("accumulated_error_s", "accumulated time error",
+                         s.get("accumulated_error_s"), "s", fmt=".5g")]
     inputs = _model_items(result.model) + (_drive_items([result.drive]) if result.drive
                                             else [])
     n = result.cycles_count
@@ -281,10 +284,13 @@ def averaged_report(result, context: str = "general") -> Report:
         if n > 2 * SAMPLE_ROWS:
             tail = result.cycle_columns(n - SAMPLE_ROWS, n)
             cols = {k: np.concatenate((head[k], tail[k])) for k in head}
+        # a rate in s/day means something for a clock; the files keep every column
+        cols = {k: v for k, v in cols.items() if clock or k != "rate_s_per_day"}
         title = ("Per cycle" if n <= 2 * SAMPLE_ROWS else
                  f"Per cycle (first and last {SAMPLE_ROWS} of {n})")
         tables.append(_table("cycles", title, cols, range(len(idx))))
     warnings, notes = _messages(result)
+    warnings += list(extra_warnings)
     notes += [("Cycle-averaged model: losses over the exact conservative orbit at each beat's "
               "amplitude, the push's energy per beat, the exact period at that amplitude. "
               "Where the assumptions fail (low Q, forcing near resonance, stick-slip) use the "
