@@ -114,8 +114,9 @@ class SwingLoads:
         compression). The tension falls with |theta|, so the ends of the swing, which
         every sampling holds, give it."""
         if self.payload_tension_N is not None:
-            return max(float(np.min(self.payload_tension_N)), 0.0)
-        least = float(np.min(self.arm_tension_N))
+            least = max(float(np.min(self.payload_tension_N)), 0.0)
+        else:
+            least = float(np.min(self.arm_tension_N))
         # a tension that is zero in exact arithmetic (an end of the swing at 90 deg) comes
         # out as rounding, ~1e-16 of the weight: shown as what it is, zero
         return 0.0 if abs(least) <= 1e-13 * self.weight_N else least

@@ -307,3 +307,13 @@ def test_first_slack_of_a_history_on_a_line_and_none_on_a_rigid_arm():
     assert first_slack(line, t, [0.1, 0.2, 0.3], [0.0, 0.0, 0.0]) is None
     rigid = compound_pendulum(assemble(*point_bob(L, 1.0, "rigid")), g, 0.0)
     assert first_slack(rigid, t, [th] * 3, [0.0] * 3) is None
+
+
+def test_least_tension_at_a_90_degree_turning_point_is_zero_not_rounding():
+    """At a 90 deg turning point the line carries m g cos 90 deg = 0 (textbook): the
+    float cos(pi/2) = 6e-17 must not show as 1e-14 N, on a line or on a rigid arm."""
+    import math
+
+    for kind in ("flexible", "rigid"):
+        pend = compound_pendulum(assemble(*point_bob(2.2, 80.0, kind)), G)
+        assert swing_loads(pend, math.pi / 2).least_tension_N == 0.0

@@ -130,9 +130,11 @@ def design_report(design) -> Report:
         Item("over_top_angular_speed_rad_s", "bottom angular speed for over the top"
              + (" taut" if flexible else ""), loads.over_top_speed_rad_s, "rad/s", fmt=".4g")]
     if design.environment.air:
+        shift = (1 + pend.buoyancy_period_shift_rel) * (1 + pend.added_mass_period_shift_rel) - 1
+        # ppm for a clock bob's few tens; a broadside panel's percent as a percent
+        big = abs(shift) >= 1e-3
         summary += [Item("air_period_shift_rel", "air's period shift (buoyancy + added mass)",
-                         (1 + pend.buoyancy_period_shift_rel)
-                         * (1 + pend.added_mass_period_shift_rel) - 1, "ppm", 1e6, ".4g")]
+                         shift, "%" if big else "ppm", 100.0 if big else 1e6, ".4g")]
     if design.target_period_s is not None:
         summary.append(Item("target_period_s", "target period", design.target_period_s, "s",
                             fmt=".8g"))
