@@ -189,3 +189,9 @@ def test_a_run_that_would_slacken_the_chains_says_so():
     assert "slack" not in out.split("CAUTION")[0]
     out, _ = run_ok("simulate", seat, "--averaged", "--amplitude", "100", "--cycles", "2")
     assert "past 90 deg the suspension goes slack" in out
+
+
+def test_a_duration_beyond_the_cycle_bound_is_refused():
+    """1e12 s is some 5e11 periods of the bundled clock (T0 about 2 s): beyond the 1e9
+    cycles --cycles allows, so refused at once rather than run for days."""
+    assert_bad(("simulate", "--duration", "1e12 s"), "--duration", "1e9")

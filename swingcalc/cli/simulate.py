@@ -520,6 +520,11 @@ def _run(design=None, length=None, mass=None, gravity=None, inertia=None, com_di
                                                               "angular_velocity",
                                                               "--angular-speed")
     T = opt.positive_time(duration, "--duration") if duration is not None else None
+    if T is not None and T > 1e9 * model.small_angle_period:
+        # the same bound as --cycles: more would run for days and fill the memory
+        raise InvalidInput("--duration", duration, "at most 1e9 small-angle periods "
+                           f"({1e9 * model.small_angle_period:.4g} s here); for long runs "
+                           "use --averaged", "too long")
     n = _cycles_value(cycles) if cycles is not None else None
     if T is None and n is None:
         n = _DEFAULT_CYCLES
