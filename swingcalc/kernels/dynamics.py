@@ -106,29 +106,52 @@ def ledger_names(p: Params) -> list[str]:
     return names
 
 
+class _Terms(NamedTuple):
+    """The constants both right-hand sides derive from the parameters."""
+
+    I: float            # inertia [kg m^2]
+    M: float            # restoring moment [N m]
+    d: float            # pivot to centre of mass [m]
+    g: float
+    w0: float
+    inv_iw: float       # 1 / (I w0)
+    inv_e: float        # 1 / reference energy
+    m_g: float          # M / g
+    c: float            # viscous
+    D: float            # quadratic drag
+    mode: int           # friction mode
+    cf: float           # kinetic friction coefficient
+    e: float            # cf d / I for reaction-following friction, else 0
+    one_e2: float       # 1 - e^2
+    d_i: float          # d / I
+    i_c: int            # ledger rows of each loss (0: none) and of the first drive
+    i_d: int
+    i_f: int
+    i_drive: int
+    n: int              # length of the state: angle, speed and the ledger
+
+
+def _terms(p: Params) -> _Terms:
+    I, d, c, D, mode = p.inertia, p.com, p.viscous, p.drag, p.friction_mode
+    e = p.kinetic * d / I if mode == FRICTION_REACTION else 0.0
+    names = ledger_names(p)
+    return _Terms(I, p.restoring, d, p.gravity, p.w0, 1.0 / (I * p.w0), 1.0 / p.e_ref,
+                  p.restoring / p.gravity, c, D, mode, p.kinetic, e, 1.0 - e * e, d / I,
+                  2 + names.index("viscous") if c else 0,
+                  2 + names.index("drag") if D else 0,
+                  2 + names.index("friction") if mode else 0,
+                  2 + len(names) - len(p.torques) - len(p.pivots), 2 + len(names))
+
+
 def make_rhs(p: Params, s: float, out: np.ndarray):
     """The right-hand side f(t, y) for sliding direction ``s`` (+1/-1; ignored without
     friction). It writes into ``out`` (a float array) and returns it (the integrator
     copies it), and it never raises: a failure is reported through ``rhs.state`` and the
     caller stops."""
     sin, cos, sqrt = math.sin, math.cos, math.sqrt
-    I, M, _m, d, g = p.inertia, p.restoring, p.mass, p.com, p.gravity
-    w0 = p.w0
-    inv_iw = 1.0 / (I * w0)
-    inv_e = 1.0 / p.e_ref
-    m_g = M / g
+    (_, M, d, g, w0, inv_iw, inv_e, m_g, c, D, mode, cf, e, one_e2, d_i,
+     i_c, i_d, i_f, i_drive, _) = _terms(p)
     linear = bool(p.linear)
-    c, D = p.viscous, p.drag
-    mode = p.friction_mode
-    cf = p.kinetic
-    e = cf * d / I if mode == FRICTION_REACTION else 0.0
-    one_e2 = 1.0 - e * e
-    d_i = d / I
-    names = ledger_names(p)
-    i_c = 2 + names.index("viscous") if c else 0
-    i_d = 2 + names.index("drag") if D else 0
-    i_f = 2 + names.index("friction") if mode else 0
-    i_drive = 2 + len(names) - len(p.torques) - len(p.pivots)
     torques = tuple((float(a), float(w), float(ph)) for a, w, ph in p.torques)
     pivots = tuple((int(ax), float(a) * float(w) ** 2, float(w), float(ph))
                    for ax, a, w, ph in p.pivots)
@@ -496,23 +519,8 @@ def make_rhs_array(p: Params, s: float):
     """The right-hand side of :func:`make_rhs` for many states at once: ``f(t, Y)`` with
     ``t`` of shape (k,) and ``Y`` of shape (n, k) returns an (n, k) array (the same
     formulas, elementwise; used to locate the events of many steps in one pass)."""
-    I, M, d, g = p.inertia, p.restoring, p.com, p.gravity
-    w0 = p.w0
-    inv_iw = 1.0 / (I * w0)
-    inv_e = 1.0 / p.e_ref
-    m_g = M / g
-    c, D = p.viscous, p.drag
-    mode = p.friction_mode
-    cf = p.kinetic
-    e = cf * d / I if mode == FRICTION_REACTION else 0.0
-    one_e2 = 1.0 - e * e
-    d_i = d / I
-    names = ledger_names(p)
-    i_c = 2 + names.index("viscous") if c else 0
-    i_d = 2 + names.index("drag") if D else 0
-    i_f = 2 + names.index("friction") if mode else 0
-    i_drive = 2 + len(names) - len(p.torques) - len(p.pivots)
-    n = 2 + len(names)
+    (_, M, d, g, w0, inv_iw, inv_e, m_g, c, D, mode, cf, e, one_e2, d_i,
+     i_c, i_d, i_f, i_drive, n) = _terms(p)
     free = not (mode or p.torques or p.pivots)
 
     def rhs(t, Y):
